@@ -1,0 +1,84 @@
+import type { Arc, Line, SourceSpan } from '../types';
+
+/**
+ * Converts an SVG elliptical arc from endpoint parameterisation to the model's centre form.
+ *
+ * Source: SVG 1.1 Second Edition, Appendix F.6.5 (conversion from endpoint to center
+ * parameterization, eqs. F.6.5.1–F.6.5.6) and F.6.6 (correction of out-of-range radii);
+ * the same steps are in SVG 2's implementation notes. Deviations, both allowed by the notes:
+ * - angle(u, v) is computed as atan2(u × v, u · v) instead of the spec's acos form, which loses
+ *   accuracy near ±1 and cannot tell the sign of a half turn;
+ * - a tiny negative radicand from rounding is clamped to 0.
+ *
+ * Returns null when the end points coincide (the spec omits the segment) and a straight `Line`
+ * when rx or ry is zero (the spec treats it as a lineto).
+ */
+export function arcFromSvgEndpoints(
+  x1: number, y1: number,
+  rxIn: number, ryIn: number,
+  phiDeg: number,
+  largeArc: boolean, sweepFlag: boolean,
+  x2: number, y2: number,
+  span: SourceSpan,
+): Arc | Line | null {
+  if (x1 === x2 && y1 === y2) return null;
+  let rx = Math.abs(rxIn);
+  let ry = Math.abs(ryIn);
+  if (rx === 0 || ry === 0) return { kind: 'line', x0: x1, y0: y1, x1: x2, y1: y2, span };
+
+  const phi = ((phiDeg % 360) * Math.PI) / 180;
+  const cosPhi = Math.cos(phi);
+  const sinPhi = Math.sin(phi);
+  // F.6.5.1
+  const dx2 = (x1 - x2) / 2;
+  const dy2 = (y1 - y2) / 2;
+  const x1p = cosPhi * dx2 + sinPhi * dy2;
+  const y1p = -sinPhi * dx2 + cosPhi * dy2;
+  // F.6.6.2–3: scale radii up when no ellipse of the given size reaches both end points.
+  const lambda = (x1p * x1p) / (rx * rx) + (y1p * y1p) / (ry * ry);
+  if (lambda > 1) {
+    const s = Math.sqrt(lambda);
+    rx *= s;
+    ry *= s;
+  }
+  // F.6.5.2
+  const rx2 = rx * rx;
+  const ry2 = ry * ry;
+  const den = rx2 * y1p * y1p + ry2 * x1p * x1p;
+  const num = rx2 * ry2 - den;
+  let coef = lambda >= 1 ? 0 : Math.sqrt(Math.max(0, num / den));
+  if (largeArc === sweepFlag) coef = -coef;
+  const cxp = (coef * rx * y1p) / ry;
+  const cyp = (-coef * ry * x1p) / rx;
+  // F.6.5.3
+  const cx = cosPhi * cxp - sinPhi * cyp + (x1 + x2) / 2;
+  const cy = sinPhi * cxp + cosPhi * cyp + (y1 + y2) / 2;
+  // F.6.5.5–6
+  const ux = (x1p - cxp) / rx;
+  const uy = (y1p - cyp) / ry;
+  const vx = (-x1p - cxp) / rx;
+  const vy = (-y1p - cyp) / ry;
+  const theta0 = Math.atan2(uy, ux);
+  let sweep = Math.atan2(ux * vy - uy * vx, ux * vx + uy * vy);
+  if (!sweepFlag && sweep > 0) sweep -= 2 * Math.PI;
+  else if (sweepFlag && sweep < 0) sweep += 2 * Math.PI;
+  // A half turn has u × v = ±0 and atan2 returns ±π from the sign of zero; the flag decides.
+  if (Math.abs(sweep) === Math.PI) sweep = sweepFlag ? Math.PI : -Math.PI;
+
+  return {
+    kind: 'arc',
+    x0: x1, y0: y1, x1: x2, y1: y2,
+    cx, cy,
+    ux: rx * cosPhi, uy: rx * sinPhi,
+    vx: -ry * sinPhi, vy: ry * cosPhi,
+    theta0, sweep,
+    span,
+  };
+}
+
+/** Point of an arc at angle θ: C + U·cos θ + V·sin θ. */
+export function getArcPoint(a: Arc, theta: number): [number, number] {
+  const c = Math.cos(theta);
+  const s = Math.sin(theta);
+  return [a.cx + a.ux * c + a.vx * s, a.cy + a.uy * c + a.vy * s];
+}

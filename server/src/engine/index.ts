@@ -1,0 +1,105 @@
+/**
+ * The engine facade: text and options in, plain results out. No editor, protocol, file-system or
+ * process imports anywhere under engine/ — the language server and the CLI are thin adapters.
+ */
+import { checks, getCheck } from './checks/index';
+import { fillTemplate } from './format';
+import { readSvg } from './formats/svg/readSvg';
+import { measureContour } from './geometry/measure';
+import { DEFAULT_NEAR_CLOSED_TOLERANCE_MM } from './geometry/tolerances';
+import type {
+  AnalysisOptions,
+  AnalysisResult,
+  ContourResult,
+  FileFormat,
+  Finding,
+  RawFinding,
+  ReadResult,
+} from './types';
+
+export type * from './types';
+export { checks, getCheck } from './checks/index';
+export { formatNumber } from './format';
+
+export const DEFAULT_OPTIONS: AnalysisOptions = {
+  nearClosedToleranceMm: DEFAULT_NEAR_CLOSED_TOLERANCE_MM,
+  assumedUnit: 'auto',
+  severity: {},
+};
+
+/** Thrown by `analyze` when `options.isCancelled()` returns true. */
+export class AnalysisCancelled extends Error {
+  constructor() {
+    super('Analysis cancelled');
+    this.name = 'AnalysisCancelled';
+  }
+}
+
+/** Picks the reader for a file name, or undefined when Loopwise does not read that kind of file. */
+export function getFormatForPath(path: string): FileFormat | undefined {
+  const lower = path.toLowerCase();
+  if (lower.endsWith('.svg')) return 'svg';
+  return undefined;
+}
+
+function read(text: string, format: FileFormat, options: AnalysisOptions): ReadResult {
+  switch (format) {
+    case 'svg':
+      return readSvg(text, { assumedUnit: options.assumedUnit });
+    case 'dxf':
+      throw new Error('DXF files are not read yet');
+  }
+}
+
+/** Analyses one file's text. Throws `AnalysisCancelled` when cancelled; never throws on bad input. */
+export function analyze(text: string, format: FileFormat, partial: Partial<AnalysisOptions> = {}): AnalysisResult {
+  const options: AnalysisOptions = { ...DEFAULT_OPTIONS, ...partial };
+  const checkCancelled = () => {
+    if (options.isCancelled?.()) throw new AnalysisCancelled();
+  };
+  const readResult = read(text, format, options);
+  checkCancelled();
+  const contours: ContourResult[] = readResult.contours.map((contour) => ({
+    contour,
+    metrics: measureContour(contour, readResult.yAxis),
+  }));
+  checkCancelled();
+
+  const raw: RawFinding[] = [...readResult.problems];
+  for (const check of checks) {
+    if (!check.run || options.severity[check.id] === 'off') continue;
+    check.run({
+      read: readResult,
+      contours,
+      options,
+      report: (f) => raw.push({ ...f, checkId: check.id }),
+    });
+    checkCancelled();
+  }
+
+  const findings: Finding[] = [];
+  for (const f of raw) {
+    const check = getCheck(f.checkId);
+    const setting = options.severity[f.checkId] ?? check.defaultSeverity;
+    if (setting === 'off') continue;
+    const template = check.messages[f.messageId] ?? f.messageId;
+    findings.push({ ...f, severity: setting, message: fillTemplate(template, f.data) });
+  }
+  findings.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
+
+  return { format, yAxis: readResult.yAxis, units: readResult.units, contours, findings };
+}
+
+/** The innermost contour whose text contains `offset` (for hovers), or undefined. */
+export function getContourAt(result: AnalysisResult, offset: number): ContourResult | undefined {
+  let best: ContourResult | undefined;
+  for (const c of result.contours) {
+    const { span, elementSpan } = c.contour;
+    const inside = (offset >= span.start && offset < span.end) || (offset >= elementSpan.start && offset < elementSpan.end);
+    if (!inside) continue;
+    const size = span.end - span.start;
+    // Prefer the subpath whose own span holds the offset, then the smallest.
+    if (!best || (offset >= span.start && offset < span.end && size < best.contour.span.end - best.contour.span.start)) best = c;
+  }
+  return best;
+}

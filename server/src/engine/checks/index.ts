@@ -1,0 +1,21 @@
+/** The registry of checks: id → definition. A new check is added here and documented in the README. */
+import type { CheckDefinition } from './defineCheck';
+import nearClosed from './near-closed';
+import openContour from './open-contour';
+import parseError from './parse-error';
+import unitsAssumed from './units-assumed';
+import zeroLengthSegment from './zero-length-segment';
+
+export type { CheckContext, CheckDefinition } from './defineCheck';
+
+/** Every check, in the order they run. */
+export const checks: readonly CheckDefinition[] = [parseError, unitsAssumed, openContour, nearClosed, zeroLengthSegment];
+
+const byId = new Map(checks.map((c) => [c.id, c]));
+
+/** The check with this id; throws for an unknown id (a reader or check reporting under a wrong id is a bug). */
+export function getCheck(id: string): CheckDefinition {
+  const check = byId.get(id);
+  if (!check) throw new Error(`Unknown check id '${id}'; known ids: ${[...byId.keys()].join(', ')}`);
+  return check;
+}

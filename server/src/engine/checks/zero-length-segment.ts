@@ -1,0 +1,22 @@
+import { getSegmentLength } from '../geometry/measure';
+import { ZERO_LENGTH_MM } from '../geometry/tolerances';
+import { defineCheck } from './defineCheck';
+
+/** A segment that goes nowhere: a repeated point. Machines may pause on it and leave a burn mark. */
+export default defineCheck({
+  id: 'zero-length-segment',
+  description: 'A segment has (almost) no length: a repeated point where a machine may pause and mark the part.',
+  defaultSeverity: 'warning',
+  messages: {
+    zero: 'Segment of contour #{contour} has zero length ({lengthMm} mm).',
+  },
+  run(ctx) {
+    for (const { contour } of ctx.contours) {
+      for (const segment of contour.segments) {
+        const lengthMm = getSegmentLength(segment);
+        if (lengthMm >= ZERO_LENGTH_MM) continue;
+        ctx.report({ messageId: 'zero', span: segment.span, contour: contour.index, data: { contour: contour.index, lengthMm } });
+      }
+    }
+  },
+});

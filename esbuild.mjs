@@ -1,6 +1,9 @@
 // Bundles the three entry points (editor client, language server, CLI) into dist/.
 // Type-checking is separate (`tsc -b`); esbuild only strips types.
 import * as esbuild from 'esbuild';
+import { readFileSync } from 'node:fs';
+
+const { version } = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8'));
 
 const production = process.argv.includes('--production');
 const watch = process.argv.includes('--watch');
@@ -14,6 +17,7 @@ const common = {
   minify: production,
   logLevel: 'warning',
   external: ['vscode'],
+  define: { LOOPWISE_VERSION: JSON.stringify(version) },
 };
 
 const entries = [

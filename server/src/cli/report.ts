@@ -1,0 +1,147 @@
+/**
+ * Renders analysis results for the terminal (a table per file plus `file:line:column` problem lines)
+ * and as the machine-readable JSON report — a public contract documented in the README
+ * ("The JSON report"). Pure: strings out, no I/O.
+ */
+import { formatNumber } from '../engine/index';
+import type { AnalysisResult, ContourResult, Finding, Measured, Severity } from '../engine/index';
+import { createLineIndex, type LineIndex } from '../engine/lineIndex';
+
+export type FileReport =
+  | { readonly path: string; readonly text: string; readonly result: AnalysisResult }
+  | { readonly path: string; readonly error: string };
+
+const valueOf = (m: Measured): number | null => m.value;
+
+function toJsonContour(c: ContourResult, lines: LineIndex) {
+  const { contour, metrics } = c;
+  const start = lines.at(contour.span.start);
+  const end = lines.at(contour.span.end);
+  return {
+    index: contour.index,
+    source: {
+      line: start.line,
+      column: start.column,
+      endLine: end.line,
+      endColumn: end.column,
+      element: contour.element,
+      id: contour.id ?? null,
+      ...(contour.layer !== undefined ? { layer: contour.layer } : {}),
+    },
+    closed: metrics.closed,
+    gapMm: metrics.gapMm,
+    lengthMm: metrics.lengthMm,
+    perimeterMm: valueOf(metrics.perimeterMm),
+    areaMm2: valueOf(metrics.areaMm2),
+    signedAreaMm2: valueOf(metrics.signedAreaMm2),
+    orientation: metrics.orientation,
+    q: valueOf(metrics.q),
+    deficitMm2: valueOf(metrics.deficitMm2),
+    bboxMm: metrics.bboxMm,
+    segments: metrics.segmentCount,
+  };
+}
+
+function toJsonProblem(f: Finding, lines: LineIndex) {
+  const start = lines.at(f.span.start);
+  const end = lines.at(f.span.end);
+  return {
+    id: f.checkId,
+    severity: f.severity,
+    message: f.message,
+    line: start.line,
+    column: start.column,
+    endLine: end.line,
+    endColumn: end.column,
+    ...(f.contour !== undefined ? { contour: f.contour } : {}),
+  };
+}
+
+/** The JSON report: `{ "files": [...] }`, see the README for every field. */
+export function renderJson(files: readonly FileReport[]): string {
+  const out = files.map((file) => {
+    if ('error' in file) return { path: file.path, error: file.error };
+    const { result } = file;
+    const lines = createLineIndex(file.text);
+    return {
+      path: file.path,
+      format: result.format,
+      units: { declared: result.units.declared, mmPerUnit: result.units.mmPerUnit, assumed: result.units.assumed },
+      contours: result.contours.map((c) => toJsonContour(c, lines)),
+      problems: result.findings.map((f) => toJsonProblem(f, lines)),
+    };
+  });
+  return JSON.stringify({ files: out }, null, 2) + '\n';
+}
+
+const dash = '—';
+const show = (m: Measured, digits = 3): string => (m.value === null ? dash : formatNumber(m.value, digits));
+
+function table(rows: readonly (readonly string[])[], rightAligned: ReadonlySet<number>): string[] {
+  const widths = rows[0]!.map((_, col) => Math.max(...rows.map((r) => r[col]!.length)));
+  return rows.map((r) =>
+    r.map((cell, col) => (rightAligned.has(col) ? cell.padStart(widths[col]!) : cell.padEnd(widths[col]!))).join('  ').trimEnd(),
+  );
+}
+
+function describeUnits(result: AnalysisResult): string {
+  const { units } = result;
+  const scale = `1 unit = ${formatNumber(units.mmPerUnit, 6)} mm`;
+  return units.declared ? scale : `${scale}, assumed ${units.assumed ?? ''}`.trimEnd();
+}
+
+/** The terminal report: per file a contour table and the problems as `file:line:column`. */
+export function renderText(files: readonly FileReport[]): string {
+  const out: string[] = [];
+  const counts: Record<Severity, number> = { error: 0, warning: 0, info: 0 };
+  let contourCount = 0;
+  for (const file of files) {
+    if ('error' in file) {
+      out.push(`${file.path}: cannot be read: ${file.error}`, '');
+      continue;
+    }
+    const { result } = file;
+    const lines = createLineIndex(file.text);
+    out.push(`${file.path}  (${result.format.toUpperCase()}, ${describeUnits(result)})`);
+    const problemsByContour = new Map<number, Set<string>>();
+    for (const f of result.findings) {
+      if (f.contour === undefined) continue;
+      const set = problemsByContour.get(f.contour) ?? new Set<string>();
+      set.add(f.checkId);
+      problemsByContour.set(f.contour, set);
+    }
+    if (result.contours.length === 0) {
+      out.push('  no contours');
+    } else {
+      const rows: string[][] = [['#', 'element', 'at', 'closed', 'gap mm', 'length mm', 'perimeter mm', 'area mm²', 'Q', 'problems']];
+      for (const { contour, metrics } of result.contours) {
+        const at = lines.at(contour.span.start);
+        rows.push([
+          String(contour.index),
+          contour.id ? `${contour.element}#${contour.id}` : contour.element,
+          `${at.line}:${at.column}`,
+          metrics.closed ? 'yes' : 'no',
+          formatNumber(metrics.gapMm, 4),
+          formatNumber(metrics.lengthMm),
+          show(metrics.perimeterMm),
+          show(metrics.areaMm2),
+          show(metrics.q, 4),
+          [...(problemsByContour.get(contour.index) ?? [])].join(', '),
+        ]);
+      }
+      out.push(...table(rows, new Set([0, 4, 5, 6, 7, 8])).map((l) => `  ${l}`));
+    }
+    contourCount += result.contours.length;
+    for (const f of result.findings) {
+      counts[f.severity]++;
+      const at = lines.at(f.span.start);
+      out.push(`${file.path}:${at.line}:${at.column}  ${f.severity}  ${f.checkId}  ${f.message}`);
+    }
+    out.push('');
+  }
+  const fileWord = files.length === 1 ? 'file' : 'files';
+  out.push(
+    `${files.length} ${fileWord}, ${contourCount} contours: ${counts.error} errors, ${counts.warning} warnings, ${counts.info} notes`,
+  );
+  return out.join('\n') + '\n';
+}

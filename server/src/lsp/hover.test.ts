@@ -1,0 +1,84 @@
+import { MarkupKind } from 'vscode-languageserver';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { describe, expect, it } from 'vitest';
+import { escapeMarkdown, getContourCard, getHover, renderCardPlaintext } from './hover';
+import { makeContour, makeResult, openMetrics, PX_UNITS, rectangleMetrics, spanOf } from './testing/fakeResult';
+
+const text = '<svg>\n<rect id="plate" width="10" height="20"/>\n<path d="M0 0 L3 0 L3 4"/>\n</svg>';
+const doc = TextDocument.create('file:///h.svg', 'xml', 1, text);
+const rectSpan = spanOf(text, '<rect id="plate" width="10" height="20"/>');
+const pathSpan = spanOf(text, 'M0 0 L3 0 L3 4');
+const rect = { contour: makeContour({ index: 0, span: rectSpan, element: 'rect', id: 'plate' }), metrics: rectangleMetrics(10, 20) };
+// Open path (0,0) → (3,0) → (3,4): drawn length 3 + 4 = 7 mm; gap = hypot(3, 4) = 5 mm (3-4-5 triangle).
+const open = {
+  contour: makeContour({ index: 1, span: pathSpan, closed: false }),
+  metrics: openMetrics(7, 5, [0, 0, 3, 4]),
+};
+const result = makeResult([rect, open]);
+
+function row(card: ReturnType<typeof getContourCard>, label: string): string | undefined {
+  return card.rows.find((r) => r.label.startsWith(label))?.value;
+}
+
+describe('getContourCard', () => {
+  const card = getContourCard(rect, result);
+
+  it('numbers contours from 1 and names the element and id', () => {
+    expect(card.title).toBe('Contour 1 of 2');
+    expect(card.subtitle).toBe('rect #plate');
+  });
+
+  it('shows the figures of a 10 × 20 mm rectangle', () => {
+    expect(row(card, 'Status')).toBe('closed');
+    expect(row(card, 'Segments')).toBe('4');
+    expect(row(card, 'Orientation')).toBe('cw (as displayed)');
+    expect(row(card, 'Perimeter')).toBe('60 mm'); // rectangle perimeter 2(a+b) = 2(10+20)
+    expect(row(card, 'Area')).toBe('200 mm²'); // rectangle area ab = 10·20
+    expect(row(card, 'Roundness')).toBe('0.698'); // 4π·200/60² = 0.69813 (by hand)
+    expect(row(card, 'Deficit')).toBe('1086.726 mm²'); // 60² − 4π·200 = 3600 − 2513.274 = 1086.726 (by hand)
+    expect(row(card, 'Bounding box')).toBe('x 0 … 10, y 0 … 20 mm (10 × 20 mm)');
+    expect(row(card, 'Units')).toBe('declared (1 unit = 1 mm)');
+  });
+
+  it('shows the reason instead of a number for figures an open contour does not have', () => {
+    const c = getContourCard(open, result);
+    expect(row(c, 'Status')).toBe('open, gap 5 mm'); // hypot(3, 4) = 5 (3-4-5 triangle)
+    expect(row(c, 'Drawn length')).toBe('7 mm'); // 3 + 4
+    for (const label of ['Orientation', 'Perimeter', 'Area', 'Roundness', 'Deficit']) {
+      expect(row(c, label)).toBe('— (open contour)');
+    }
+    expect(c.rows.map((r) => r.value).join('\n')).not.toMatch(/NaN|undefined|null/);
+  });
+
+  it('says which unit was assumed and where to change it', () => {
+    expect(row(getContourCard(rect, makeResult([rect], [], PX_UNITS)), 'Units')).toBe('assumed: px — set loopwise.assumedUnit');
+  });
+});
+
+describe('getHover', () => {
+  it('covers the contour under the cursor with a markdown card over its whole span', () => {
+    const hover = getHover(result, doc, spanOf(text, 'L3 0').start, MarkupKind.Markdown);
+    // The path is on line 2; `M` sits after `<path d="` (9 characters), `L3 4` ends at 9 + 14 = 23.
+    expect(hover?.range).toEqual({ start: { line: 2, character: 9 }, end: { line: 2, character: 23 } });
+    expect(hover?.contents).toMatchObject({ kind: 'markdown' });
+    const value = (hover?.contents as { value: string }).value;
+    expect(value).toContain('Contour 2 of 2');
+    expect(value).toContain('open, gap 5 mm');
+  });
+
+  it('answers null where no contour is', () => {
+    expect(getHover(result, doc, 2, MarkupKind.Markdown)).toBeNull();
+  });
+
+  it('renders plain text for clients without markdown', () => {
+    const hover = getHover(result, doc, rectSpan.start + 3, MarkupKind.PlainText);
+    expect(hover?.contents).toEqual({ kind: 'plaintext', value: renderCardPlaintext(getContourCard(rect, result)) });
+    expect((hover?.contents as { value: string }).value).toContain('Perimeter: 60 mm');
+  });
+});
+
+describe('escapeMarkdown', () => {
+  it('keeps ids with markup characters literal', () => {
+    expect(escapeMarkdown('a|b*c_<d>')).toBe('a\\|b\\*c\\_\\<d\\>');
+  });
+});

@@ -1,0 +1,109 @@
+/**
+ * The hover card: every figure Loopwise knows about the contour under the cursor. Undefined figures
+ * show why they are undefined ("— (open contour)"), never NaN.
+ */
+import { MarkupKind } from 'vscode-languageserver';
+import type { Hover } from 'vscode-languageserver';
+import type { TextDocument } from 'vscode-languageserver-textdocument';
+import { formatNumber, getContourAt } from '../engine/index';
+import type { AnalysisResult, ContourResult, Measured, UnitsInfo } from '../engine/index';
+import { toRange } from './diagnostics';
+
+/** One line of the card: a label and its value, both plain text. */
+export interface CardRow {
+  readonly label: string;
+  readonly value: string;
+}
+
+export interface ContourCard {
+  readonly title: string;
+  readonly subtitle: string;
+  readonly rows: readonly CardRow[];
+}
+
+function undefinedBecause(reason: string): string {
+  return `— (${reason})`;
+}
+
+function measured(m: Measured, unit: string): string {
+  if (m.value === null) return undefinedBecause(m.reason);
+  return unit ? `${formatNumber(m.value)} ${unit}` : formatNumber(m.value);
+}
+
+function describeUnits(units: UnitsInfo): string {
+  if (units.declared) return `declared (1 unit = ${formatNumber(units.mmPerUnit, 6)} mm)`;
+  return `assumed: ${units.assumed ?? `1 unit = ${formatNumber(units.mmPerUnit, 6)} mm`} — set loopwise.assumedUnit`;
+}
+
+/** The card's content as plain data; `getHover` renders it for the client. */
+export function getContourCard(entry: ContourResult, result: AnalysisResult): ContourCard {
+  const { contour, metrics } = entry;
+  const gap = `gap ${formatNumber(metrics.gapMm)} mm`;
+  const status = metrics.closed ? (metrics.gapMm > 0 ? `closed (${gap})` : 'closed') : `open, ${gap}`;
+  let orientation: string;
+  if (metrics.orientation !== null) orientation = `${metrics.orientation} (as displayed)`;
+  else if (!metrics.closed) orientation = undefinedBecause('open contour');
+  else if (metrics.signedAreaMm2.value === null) orientation = undefinedBecause(metrics.signedAreaMm2.reason);
+  else orientation = undefinedBecause('zero area');
+  const [minX, minY, maxX, maxY] = metrics.bboxMm;
+  const f = (v: number) => formatNumber(v);
+  const bbox = `x ${f(minX)} … ${f(maxX)}, y ${f(minY)} … ${f(maxY)} mm (${f(maxX - minX)} × ${f(maxY - minY)} mm)`;
+
+  const where = [contour.element, contour.id !== undefined ? `#${contour.id}` : '', contour.layer !== undefined ? `layer ${contour.layer}` : '']
+    .filter((s) => s !== '')
+    .join(' ');
+  return {
+    title: `Contour ${contour.index + 1} of ${result.contours.length}`,
+    subtitle: where,
+    rows: [
+      { label: 'Status', value: status },
+      { label: 'Segments', value: String(metrics.segmentCount) },
+      { label: 'Orientation', value: orientation },
+      { label: 'Drawn length', value: `${f(metrics.lengthMm)} mm` },
+      { label: 'Perimeter', value: measured(metrics.perimeterMm, 'mm') },
+      { label: 'Area', value: measured(metrics.areaMm2, 'mm²') },
+      { label: 'Roundness Q = 4πA/L²', value: measured(metrics.q, '') },
+      { label: 'Deficit L² − 4πA', value: measured(metrics.deficitMm2, 'mm²') },
+      { label: 'Bounding box', value: bbox },
+      { label: 'Units', value: describeUnits(result.units) },
+    ],
+  };
+}
+
+/**
+ * Backslash-escapes the characters that could start markup inside a table cell (emphasis, code,
+ * links, cell borders, HTML, entities), so ids from the file show literally.
+ */
+export function escapeMarkdown(text: string): string {
+  return text.replace(/[\\`*_[\]|<>~&#!]/g, '\\$&');
+}
+
+export function renderCardMarkdown(card: ContourCard): string {
+  const header = `| **${escapeMarkdown(card.title)}** | ${escapeMarkdown(card.subtitle)} |`;
+  const rows = card.rows.map((r) => `| ${escapeMarkdown(r.label)} | ${escapeMarkdown(r.value)} |`);
+  return [header, '| :-- | :-- |', ...rows].join('\n');
+}
+
+export function renderCardPlaintext(card: ContourCard): string {
+  const head = card.subtitle ? `${card.title} — ${card.subtitle}` : card.title;
+  return [head, ...card.rows.map((r) => `${r.label}: ${r.value}`)].join('\n');
+}
+
+/** The hover for `offset`, spanning the contour's text; null when no contour is there. */
+export function getHover(
+  result: AnalysisResult,
+  document: TextDocument,
+  offset: number,
+  kind: MarkupKind,
+): Hover | null {
+  const entry = getContourAt(result, offset);
+  if (!entry) return null;
+  const card = getContourCard(entry, result);
+  return {
+    contents: {
+      kind,
+      value: kind === MarkupKind.Markdown ? renderCardMarkdown(card) : renderCardPlaintext(card),
+    },
+    range: toRange(document, entry.contour.span),
+  };
+}

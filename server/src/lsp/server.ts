@@ -1,0 +1,204 @@
+/**
+ * The Loopwise language server: wiring between the LSP connection and the engine. Documents are
+ * analysed on open and after edits (debounced), results are cached per (uri, version), and every
+ * request handler is guarded so that no file and no engine bug can crash the server.
+ */
+import { CodeActionKind, MarkupKind, TextDocumentSyncKind, TextDocuments } from 'vscode-languageserver';
+import type { CancellationToken, ClientCapabilities, Connection, InitializeResult } from 'vscode-languageserver';
+import { TextDocument } from 'vscode-languageserver-textdocument';
+import { AnalysisCancelled, analyze, getFormatForPath } from '../engine/index';
+import type { AnalysisResult, FileFormat } from '../engine/index';
+import { getCodeActions } from './codeActions';
+import { toDiagnostic } from './diagnostics';
+import { getHover } from './hover';
+import { ModelCache } from './modelCache';
+import { ReanalyzeRequest } from './protocol';
+import { formatError, runSafeAsync } from './runner';
+import { SettingsStore } from './settings';
+import { ValidationQueue } from './validation';
+
+/** The file format Loopwise reads for a document URI, from the extension of its path. */
+export function getFormatForUri(uri: string): FileFormat | undefined {
+  let path = uri;
+  try {
+    path = decodeURIComponent(new URL(uri).pathname);
+  } catch {
+    // Not a parseable URI (or bad percent-encoding): the raw string still ends with the extension.
+  }
+  return getFormatForPath(path);
+}
+
+interface ClientFeatures {
+  configuration: boolean;
+  relatedInformation: boolean;
+  hoverKind: MarkupKind;
+  codeActionLiterals: boolean;
+  documentChanges: boolean;
+}
+
+function getClientFeatures(capabilities: ClientCapabilities): ClientFeatures {
+  const hoverFormats = capabilities.textDocument?.hover?.contentFormat;
+  return {
+    configuration: capabilities.workspace?.configuration === true,
+    relatedInformation: capabilities.textDocument?.publishDiagnostics?.relatedInformation === true,
+    hoverKind: !hoverFormats || hoverFormats.includes(MarkupKind.Markdown) ? MarkupKind.Markdown : MarkupKind.PlainText,
+    codeActionLiterals: capabilities.textDocument?.codeAction?.codeActionLiteralSupport !== undefined,
+    documentChanges: capabilities.workspace?.workspaceEdit?.documentChanges === true,
+  };
+}
+
+export function startServer(connection: Connection): void {
+  const documents = new TextDocuments(TextDocument);
+  const cache = new ModelCache<AnalysisResult>();
+  let features: ClientFeatures = getClientFeatures({});
+  const settings = new SettingsStore(connection, () => features.configuration);
+  /** Bumped whenever the settings change, so results computed with older settings are not cached. */
+  let generation = 0;
+
+  /**
+   * The analysis of `document` as it is now, from the cache or computed. Undefined when Loopwise
+   * does not read this kind of file, or when the document changed (or the request was cancelled)
+   * before the analysis finished — a newer run will follow.
+   */
+  async function getAnalysis(document: TextDocument, token?: CancellationToken): Promise<AnalysisResult | undefined> {
+    const format = getFormatForUri(document.uri);
+    if (!format) return undefined;
+    const { uri, version } = document;
+    const startGeneration = generation;
+    const cached = cache.get(uri, version, startGeneration);
+    if (cached) return cached;
+    const options = await settings.get(uri);
+    const isOutdated = () =>
+      documents.get(uri)?.version !== version || generation !== startGeneration || token?.isCancellationRequested === true;
+    if (isOutdated()) return undefined;
+    let result: AnalysisResult;
+    try {
+      result = analyze(document.getText(), format, { ...options, isCancelled: isOutdated });
+    } catch (error) {
+      if (error instanceof AnalysisCancelled) return undefined;
+      throw error;
+    }
+    cache.set(uri, version, startGeneration, result);
+    return result;
+  }
+
+  async function validate(uri: string): Promise<void> {
+    try {
+      const document = documents.get(uri);
+      if (!document) return;
+      const version = document.version;
+      if (!getFormatForUri(uri)) {
+        await connection.sendDiagnostics({ uri, version, diagnostics: [] });
+        return;
+      }
+      const result = await getAnalysis(document);
+      // Stale: the document changed or closed meanwhile; its own run publishes instead.
+      if (!result || documents.get(uri) !== document || document.version !== version) return;
+      const options = { relatedInformation: features.relatedInformation };
+      const diagnostics = result.findings.map((f) => toDiagnostic(f, document, options));
+      await connection.sendDiagnostics({ uri, version, diagnostics });
+    } catch (error) {
+      connection.console.error(formatError(`Loopwise: analysing ${uri} failed`, error));
+    }
+  }
+
+  const queue = new ValidationQueue(validate);
+  /** Documents just opened: analysed at once rather than after the edit delay. */
+  const justOpened = new Set<string>();
+
+  connection.onInitialize((params): InitializeResult => {
+    features = getClientFeatures(params.capabilities);
+    return {
+      capabilities: {
+        textDocumentSync: TextDocumentSyncKind.Incremental,
+        hoverProvider: true,
+        ...(features.codeActionLiterals
+          ? { codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] } }
+          : {}),
+      },
+      serverInfo: { name: 'loopwise' },
+    };
+  });
+
+  connection.onDidChangeConfiguration((change) => {
+    generation++;
+    cache.clear();
+    settings.reset(change.settings);
+    for (const document of documents.all()) queue.schedule(document.uri, 0);
+  });
+
+  documents.onDidOpen((e) => justOpened.add(e.document.uri));
+  documents.onDidChangeContent((e) => {
+    const uri = e.document.uri;
+    queue.schedule(uri, justOpened.delete(uri) ? 0 : undefined);
+  });
+  documents.onDidClose((e) => {
+    const uri = e.document.uri;
+    justOpened.delete(uri);
+    queue.cancel(uri);
+    cache.delete(uri);
+    settings.forget(uri);
+    connection.sendDiagnostics({ uri, diagnostics: [] }).catch((error: unknown) => {
+      connection.console.error(formatError(`Loopwise: clearing problems of ${uri} failed`, error));
+    });
+  });
+
+  connection.onHover((params, token) =>
+    runSafeAsync(
+      connection.console,
+      token,
+      async () => {
+        const document = documents.get(params.textDocument.uri);
+        if (!document) return null;
+        const result = await getAnalysis(document, token);
+        if (!result) return null;
+        return getHover(result, document, document.offsetAt(params.position), features.hoverKind);
+      },
+      null,
+      `hover in ${params.textDocument.uri}`,
+    ),
+  );
+
+  connection.onCodeAction((params, token) =>
+    runSafeAsync(
+      connection.console,
+      token,
+      async () => {
+        const document = documents.get(params.textDocument.uri);
+        if (!document || !features.codeActionLiterals) return [];
+        const result = await getAnalysis(document, token);
+        if (!result) return [];
+        return getCodeActions(result, document, params.context.diagnostics, {
+          documentChanges: features.documentChanges,
+        });
+      },
+      [],
+      `code actions in ${params.textDocument.uri}`,
+    ),
+  );
+
+  connection.onRequest(ReanalyzeRequest, (_params, token) =>
+    runSafeAsync(
+      connection.console,
+      token,
+      async () => {
+        generation++;
+        cache.clear();
+        settings.reset();
+        const open = documents.all().filter((d) => getFormatForUri(d.uri) !== undefined);
+        for (const document of open) queue.schedule(document.uri, 0);
+        await queue.whenIdle();
+        let findings = 0;
+        for (const document of open) {
+          findings += cache.get(document.uri, document.version, generation)?.findings.length ?? 0;
+        }
+        return { documents: open.length, findings };
+      },
+      { documents: 0, findings: 0 },
+      'reanalysing open files',
+    ),
+  );
+
+  documents.listen(connection);
+  connection.listen();
+}

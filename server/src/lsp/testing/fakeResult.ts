@@ -1,0 +1,76 @@
+/**
+ * Hand-built engine results for the adapter's unit tests, so the conversions are tested against
+ * figures written in the test (with their formulas), not against the engine's own output.
+ */
+import type { AnalysisResult, Contour, ContourMetrics, ContourResult, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
+
+/** The span of the first occurrence of `needle` in `text` (after `from`); throws when absent. */
+export function spanOf(text: string, needle: string, from = 0): SourceSpan {
+  const start = text.indexOf(needle, from);
+  if (start < 0) throw new Error(`'${needle}' is not in the text`);
+  return { start, end: start + needle.length };
+}
+
+export function makeContour(fields: Partial<Contour> & Pick<Contour, 'span'>): Contour {
+  return {
+    index: 0,
+    segments: [],
+    closed: true,
+    startX: 0,
+    startY: 0,
+    startSpan: fields.span,
+    endSpan: fields.span,
+    elementSpan: fields.span,
+    element: 'path',
+    ...fields,
+  };
+}
+
+/** Metrics of an a × b mm axis-aligned rectangle at the origin, drawn clockwise on screen (SVG, y down). */
+export function rectangleMetrics(a: number, b: number): ContourMetrics {
+  const perimeter = 2 * (a + b); // rectangle perimeter 2(a+b)
+  const area = a * b; // rectangle area ab
+  return {
+    closed: true,
+    gapMm: 0,
+    lengthMm: perimeter,
+    perimeterMm: { value: perimeter },
+    signedAreaMm2: { value: area },
+    areaMm2: { value: area },
+    orientation: 'cw',
+    q: { value: (4 * Math.PI * area) / perimeter ** 2 }, // isoperimetric quotient 4πA/L²
+    deficitMm2: { value: perimeter ** 2 - 4 * Math.PI * area }, // isoperimetric deficit L² − 4πA
+    bboxMm: [0, 0, a, b],
+    segmentCount: 4,
+  };
+}
+
+/** Metrics of an open polyline of the given drawn length whose end is `gapMm` from its start. */
+export function openMetrics(lengthMm: number, gapMm: number, bbox: readonly [number, number, number, number]): ContourMetrics {
+  const reason = 'open contour';
+  return {
+    closed: false,
+    gapMm,
+    lengthMm,
+    perimeterMm: { value: null, reason },
+    signedAreaMm2: { value: null, reason },
+    areaMm2: { value: null, reason },
+    orientation: null,
+    q: { value: null, reason },
+    deficitMm2: { value: null, reason },
+    bboxMm: bbox,
+    segmentCount: 2,
+  };
+}
+
+export const MM_UNITS: UnitsInfo = { declared: true, mmPerUnit: 1, assumed: null, span: { start: 0, end: 0 } };
+/** CSS px: 1 px = 1/96 in = 25.4/96 mm (CSS Values and Units Level 3, §5.2 absolute lengths). */
+export const PX_UNITS: UnitsInfo = { declared: false, mmPerUnit: 25.4 / 96, assumed: 'px', span: { start: 0, end: 0 } };
+
+export function makeResult(
+  contours: readonly ContourResult[],
+  findings: readonly Finding[] = [],
+  units: UnitsInfo = MM_UNITS,
+): AnalysisResult {
+  return { format: 'svg', yAxis: 'down', units, contours, findings };
+}

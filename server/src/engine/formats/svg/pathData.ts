@@ -1,0 +1,516 @@
+import type { Fix, Segment, SourceSpan } from '../../types';
+import { arcFromSvgEndpoints } from '../../geometry/arc';
+import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
+
+/**
+ * Position-keeping reader for SVG path data (the `d` attribute).
+ *
+ * Grammar: SVG 2 Paths chapter, "The grammar for path data" (#PathDataBNF), and SVG 1.1 §8.3.9
+ * (REFERENCES §5.1). Numbers follow SVG 1.1 (`sign? (digits? '.' digits | digits '.'?) exponent?`,
+ * so SVG 1.1's trailing point `23.` is accepted); separators are comma-wsp with at most one comma,
+ * allowed between numbers and between argument groups but not after a command letter nor before
+ * one; arc flags are the single characters `0`/`1`. Error handling: SVG 2 "Error handling in path
+ * data" / SVG 1.1 Appendix F.5 (REFERENCES §5.2) — every complete argument group before the first
+ * error is kept, the error is reported at the character where the grammar breaks, and reading stops.
+ *
+ * Speed: one pass with charCodeAt, no regular expressions, one string slice only for numbers the
+ * exact fast path below cannot convert.
+ */
+
+/** One subpath of a `d` attribute, in user units (no transform); spans are file offsets. */
+export interface PathSubpath {
+  /** Drawn segments; H/V and zero-radius arcs are lines, arcs with coinciding ends zero-length lines. */
+  segments: Segment[];
+  /** Ended by Z/z. */
+  closed: boolean;
+  /** Start point (the moveto, or after a Z the previous subpath's start), user units. */
+  startX: number;
+  startY: number;
+  /** From the moveto letter (or the first drawing command after a Z) to the end of the last command, Z included. */
+  span: SourceSpan;
+  /** The moveto letter and its first coordinate pair; for a subpath that starts after a Z, its first argument group. */
+  startSpan: SourceSpan;
+  /** The last drawing command's last argument group (with its letter when it is the first group), or the Z. */
+  endSpan: SourceSpan;
+  /** Edits that close this subpath with no sliver (open subpaths with at least one segment). */
+  closeFix?: Fix;
+}
+
+/** The first error in the data: where the grammar breaks and what was expected there (no trailing period). */
+export interface PathDataError {
+  span: SourceSpan;
+  detail: string;
+}
+
+export interface ParsedPathData {
+  subpaths: PathSubpath[];
+  error?: PathDataError;
+}
+
+/**
+ * Reads path data. `baseOffset` is the file offset of `d[0]`; every span returned is a file offset.
+ * Never throws: the first error ends reading and is returned with what was read before it.
+ */
+export function parsePathData(d: string, baseOffset: number): ParsedPathData {
+  const parser = new PathDataParser(d, baseOffset);
+  parser.run();
+  return parser.error ? { subpaths: parser.subpaths, error: parser.error } : { subpaths: parser.subpaths };
+}
+
+// Character codes.
+const TAB = 9, LF = 10, FF = 12, CR = 13, SPACE = 32, PLUS = 43, COMMA = 44, MINUS = 45, DOT = 46;
+const DIGIT_0 = 48, DIGIT_1 = 49, DIGIT_9 = 57, UPPER_E = 69, LOWER_E = 101;
+
+/** SVG 2 wsp: tab, line feed, form feed, carriage return, space. */
+function isWsp(c: number): boolean {
+  return c === SPACE || c === LF || c === CR || c === TAB || c === FF;
+}
+
+function isNumberStart(c: number): boolean {
+  return (c >= DIGIT_0 && c <= DIGIT_9) || c === DOT || c === MINUS || c === PLUS;
+}
+
+/** Exact powers of ten up to 10^22, the largest one a double holds exactly. */
+const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15,
+  1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
+/** Most digits whose integer value is below 2^53, so it is exact in a double. */
+const MAX_EXACT_DIGITS = 15;
+
+/** Number of arguments per group, by upper-case command letter. */
+function getArity(upper: string): number {
+  switch (upper) {
+    case 'M': case 'L': case 'T': return 2;
+    case 'H': case 'V': return 1;
+    case 'C': return 6;
+    case 'S': case 'Q': return 4;
+    case 'A': return 7;
+    default: return 0;
+  }
+}
+
+interface SubpathBuilder {
+  segments: Segment[];
+  closed: boolean;
+  startX: number;
+  startY: number;
+  spanStart: number; // local offset
+  spanEnd: number;   // local offset
+  startSpan: SourceSpan;
+  endSpan: SourceSpan;
+}
+
+class PathDataParser {
+  readonly subpaths: PathSubpath[] = [];
+  error: PathDataError | undefined;
+
+  private readonly n: number;
+  private i = 0;
+  /** Current point and current subpath's start point. */
+  private cx = 0;
+  private cy = 0;
+  private sx = 0;
+  private sy = 0;
+  /** Previous command's last control point, for S/T reflection: 1 after C/S, 2 after Q/T, 0 otherwise. */
+  private ctrlKind = 0;
+  private px = 0;
+  private py = 0;
+  private sub: SubpathBuilder | null = null;
+
+  /** The argument group being read and the last complete one (buffers swapped after each group). */
+  private args = new Float64Array(7);
+  private tokStart = new Int32Array(7);
+  private tokEnd = new Int32Array(7);
+  private lastArgs = new Float64Array(7);
+  private lastTokStart = new Int32Array(7);
+  private lastTokEnd = new Int32Array(7);
+  private lastCommand: DrawCommand = 'L';
+  private lastRelative = false;
+  private lastStart = 0;
+  private lastEnd = 0;
+  private lastX0 = 0;
+  private lastY0 = 0;
+
+  constructor(private readonly d: string, private readonly base: number) {
+    this.n = d.length;
+  }
+
+  run(): void {
+    const d = this.d;
+    this.skipWsp();
+    if (this.i >= this.n) return; // empty: rendering disabled, no error (SVG 2 Paths, 'd' property)
+    if (this.isNone()) return;
+    const first = d.charCodeAt(this.i);
+    if (first !== 77 && first !== 109) { // not M / m
+      this.failAtChar(this.i, `path data must start with a moveto ('M' or 'm'), found ${this.describe(this.i)}`);
+      return;
+    }
+    let afterGroups = false;
+    let afterClose = false;
+    for (;;) {
+      this.skipWsp();
+      if (this.i >= this.n) break;
+      const at = this.i;
+      const ch = d[at];
+      let ok: boolean;
+      switch (ch) {
+        case 'M': case 'm':
+          ok = this.readMoveto(ch === 'm', at);
+          afterGroups = true;
+          afterClose = false;
+          break;
+        case 'Z': case 'z':
+          this.readClosepath(at);
+          ok = true;
+          afterGroups = false;
+          afterClose = true;
+          break;
+        case 'L': case 'l': case 'H': case 'h': case 'V': case 'v': case 'C': case 'c':
+        case 'S': case 's': case 'Q': case 'q': case 'T': case 't': case 'A': case 'a': {
+          const upper = ch.toUpperCase() as DrawCommand;
+          if (afterClose) this.finishSubpath(null); // a drawing command after Z starts a new subpath
+          this.i = at + 1;
+          this.skipWsp(); // a command letter may be followed by wsp only
+          ok = this.readGroups(upper, ch !== upper, at);
+          afterGroups = true;
+          afterClose = false;
+          break;
+        }
+        default: {
+          const what = afterGroups ? 'a number or a command letter' : afterClose ? "a command letter after 'Z'" : 'a command letter';
+          this.failAtChar(at, `expected ${what}, found ${this.describe(at)}`);
+          ok = false;
+        }
+      }
+      if (!ok) break;
+    }
+    this.finishSubpath(null);
+  }
+
+  /** True when the whole data is the keyword `none` (ASCII case-insensitive, surrounding wsp allowed). */
+  private isNone(): boolean {
+    const d = this.d;
+    let end = this.n;
+    while (end > this.i && isWsp(d.charCodeAt(end - 1))) end--;
+    return end - this.i === 4 && d.slice(this.i, end).toLowerCase() === 'none';
+  }
+
+  private skipWsp(): void {
+    const d = this.d, n = this.n;
+    let i = this.i;
+    while (i < n && isWsp(d.charCodeAt(i))) i++;
+    this.i = i;
+  }
+
+  /** Skips comma-wsp? (wsp with at most one comma); returns true when it consumed a comma. */
+  private skipCommaWsp(): boolean {
+    const d = this.d, n = this.n;
+    let i = this.i;
+    while (i < n && isWsp(d.charCodeAt(i))) i++;
+    let comma = false;
+    if (i < n && d.charCodeAt(i) === COMMA) {
+      comma = true;
+      i++;
+      while (i < n && isWsp(d.charCodeAt(i))) i++;
+    }
+    this.i = i;
+    return comma;
+  }
+
+  /** Reads a moveto: its first pair starts a subpath, further pairs are implicit linetos. */
+  private readMoveto(relative: boolean, letter: number): boolean {
+    this.i = letter + 1;
+    this.skipWsp();
+    const cmd = relative ? 'm' : 'M';
+    if (!this.readNumber(cmd, 0)) return false;
+    this.skipCommaWsp();
+    if (!this.readNumber(cmd, 1)) return false;
+    const x = relative ? this.cx + this.args[0] : this.args[0];
+    const y = relative ? this.cy + this.args[1] : this.args[1];
+    const pairEnd = this.i;
+    const comma = this.skipCommaWsp();
+    const restStart = this.i < this.n && isNumberStart(this.d.charCodeAt(this.i)) ? this.i : -1;
+    this.finishSubpath(relative ? { letterStart: letter, pairEnd, restStart, x, y } : null);
+    this.sub = {
+      segments: [],
+      closed: false,
+      startX: x,
+      startY: y,
+      spanStart: letter,
+      spanEnd: pairEnd,
+      startSpan: this.span(letter, pairEnd),
+      endSpan: this.span(letter, pairEnd),
+    };
+    this.cx = this.sx = x;
+    this.cy = this.sy = y;
+    this.ctrlKind = 0;
+    if (restStart >= 0) return this.readGroups('L', relative, restStart);
+    if (comma) {
+      this.failAtChar(this.i, `expected a number after ',' in '${cmd}', found ${this.describe(this.i)}`);
+      return false;
+    }
+    return true;
+  }
+
+  private readClosepath(letter: number): void {
+    this.i = letter + 1;
+    const sub = this.sub;
+    if (sub) {
+      sub.closed = true;
+      sub.spanEnd = this.i;
+      sub.endSpan = this.span(letter, this.i);
+    }
+    this.cx = this.sx;
+    this.cy = this.sy;
+    this.ctrlKind = 0;
+  }
+
+  /**
+   * Reads argument groups of one command, starting at `this.i`, until something other than a
+   * number follows. `groupStart` is where the first group's text starts (its letter, if any).
+   */
+  private readGroups(cmd: DrawCommand, relative: boolean, groupStart: number): boolean {
+    const d = this.d, n = this.n;
+    const arity = getArity(cmd);
+    const name = relative ? cmd.toLowerCase() : cmd;
+    let start = groupStart;
+    for (;;) {
+      for (let k = 0; k < arity; k++) {
+        if (k > 0) this.skipCommaWsp();
+        const ok = cmd === 'A' && (k === 3 || k === 4) ? this.readFlag(name, k) : this.readNumber(name, k);
+        if (!ok) return false;
+      }
+      this.emit(cmd, relative, start, this.i);
+      const comma = this.skipCommaWsp();
+      if (this.i < n && isNumberStart(d.charCodeAt(this.i))) {
+        start = this.i;
+        continue;
+      }
+      if (comma) {
+        this.failAtChar(this.i, `expected a number after ',' in '${name}', found ${this.describe(this.i)}`);
+        return false;
+      }
+      return true;
+    }
+  }
+
+  /** Reads an arc flag, the single character 0 or 1 (no separator needed after it). */
+  private readFlag(name: string, k: number): boolean {
+    const c = this.i < this.n ? this.d.charCodeAt(this.i) : -1;
+    if (c !== DIGIT_0 && c !== DIGIT_1) {
+      this.failAtChar(this.i, `expected an arc flag (0 or 1) in '${name}', found ${this.describe(this.i)}`);
+      return false;
+    }
+    this.args[k] = c - DIGIT_0;
+    this.tokStart[k] = this.i;
+    this.tokEnd[k] = ++this.i;
+    return true;
+  }
+
+  /** Reads one number into args[k]; on failure records the error and returns false. */
+  private readNumber(name: string, k: number): boolean {
+    const d = this.d, n = this.n;
+    const s = this.i;
+    let i = s;
+    let c = i < n ? d.charCodeAt(i) : -1;
+    if (!isNumberStart(c)) {
+      this.failAtChar(s, `expected a number in '${name}', found ${this.describe(s)}`);
+      return false;
+    }
+    let negative = false;
+    if (c === MINUS || c === PLUS) {
+      negative = c === MINUS;
+      c = ++i < n ? d.charCodeAt(i) : -1;
+    }
+    let mantissa = 0;
+    let digits = 0;
+    let fraction = 0;
+    while (c >= DIGIT_0 && c <= DIGIT_9) {
+      mantissa = mantissa * 10 + (c - DIGIT_0);
+      digits++;
+      c = ++i < n ? d.charCodeAt(i) : -1;
+    }
+    if (c === DOT) {
+      c = ++i < n ? d.charCodeAt(i) : -1;
+      while (c >= DIGIT_0 && c <= DIGIT_9) {
+        mantissa = mantissa * 10 + (c - DIGIT_0);
+        digits++;
+        fraction++;
+        c = ++i < n ? d.charCodeAt(i) : -1;
+      }
+    }
+    if (digits === 0) {
+      this.fail(s, i, `'${d.slice(s, i)}' is not a number (it has no digits)`);
+      return false;
+    }
+    let exponent = false;
+    if (c === LOWER_E || c === UPPER_E) {
+      exponent = true;
+      c = ++i < n ? d.charCodeAt(i) : -1;
+      if (c === MINUS || c === PLUS) c = ++i < n ? d.charCodeAt(i) : -1;
+      if (!(c >= DIGIT_0 && c <= DIGIT_9)) {
+        this.fail(s, i, `'${d.slice(s, i)}' is not a number (its exponent has no digits)`);
+        return false;
+      }
+      while (c >= DIGIT_0 && c <= DIGIT_9) c = ++i < n ? d.charCodeAt(i) : -1;
+    }
+    let value: number;
+    if (!exponent && digits <= MAX_EXACT_DIGITS) {
+      // Both operands are exact doubles, so the one division is correctly rounded: the same
+      // double as Number(text) (IEEE 754 §5.1; the classic exact fast path of decimal conversion).
+      value = fraction === 0 ? mantissa : mantissa / POW10[fraction]!;
+      if (negative) value = -value;
+    } else {
+      value = Number(d.slice(s, i));
+      if (!Number.isFinite(value)) {
+        this.fail(s, i, `the number '${d.slice(s, i)}' is too large`);
+        return false;
+      }
+    }
+    this.args[k] = value;
+    this.tokStart[k] = s;
+    this.tokEnd[k] = i;
+    this.i = i;
+    return true;
+  }
+
+  /** Turns the complete group in `args` into a segment and moves the current point. */
+  private emit(cmd: DrawCommand, relative: boolean, start: number, end: number): void {
+    const a = this.args;
+    const x0 = this.cx, y0 = this.cy;
+    const ox = relative ? x0 : 0, oy = relative ? y0 : 0;
+    const span = this.span(start, end);
+    let seg: Segment;
+    let x: number, y: number;
+    switch (cmd) {
+      case 'L':
+        x = ox + a[0]!; y = oy + a[1]!;
+        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        this.ctrlKind = 0;
+        break;
+      case 'H':
+        x = ox + a[0]!; y = y0;
+        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        this.ctrlKind = 0;
+        break;
+      case 'V':
+        x = x0; y = oy + a[0]!;
+        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        this.ctrlKind = 0;
+        break;
+      case 'C': {
+        const x2 = ox + a[2]!, y2 = oy + a[3]!;
+        x = ox + a[4]!; y = oy + a[5]!;
+        seg = { kind: 'cubic', x0, y0, x1: ox + a[0]!, y1: oy + a[1]!, x2, y2, x3: x, y3: y, span };
+        this.ctrlKind = 1; this.px = x2; this.py = y2;
+        break;
+      }
+      case 'S': {
+        // First control point: the previous C/S second control point reflected about the current point.
+        const x1 = this.ctrlKind === 1 ? 2 * x0 - this.px : x0;
+        const y1 = this.ctrlKind === 1 ? 2 * y0 - this.py : y0;
+        const x2 = ox + a[0]!, y2 = oy + a[1]!;
+        x = ox + a[2]!; y = oy + a[3]!;
+        seg = { kind: 'cubic', x0, y0, x1, y1, x2, y2, x3: x, y3: y, span };
+        this.ctrlKind = 1; this.px = x2; this.py = y2;
+        break;
+      }
+      case 'Q': {
+        const x1 = ox + a[0]!, y1 = oy + a[1]!;
+        x = ox + a[2]!; y = oy + a[3]!;
+        seg = { kind: 'quad', x0, y0, x1, y1, x2: x, y2: y, span };
+        this.ctrlKind = 2; this.px = x1; this.py = y1;
+        break;
+      }
+      case 'T': {
+        // Control point: the previous Q/T control point reflected about the current point.
+        const x1 = this.ctrlKind === 2 ? 2 * x0 - this.px : x0;
+        const y1 = this.ctrlKind === 2 ? 2 * y0 - this.py : y0;
+        x = ox + a[0]!; y = oy + a[1]!;
+        seg = { kind: 'quad', x0, y0, x1, y1, x2: x, y2: y, span };
+        this.ctrlKind = 2; this.px = x1; this.py = y1;
+        break;
+      }
+      case 'A':
+        x = ox + a[5]!; y = oy + a[6]!;
+        seg = arcFromSvgEndpoints(x0, y0, a[0]!, a[1]!, a[2]!, a[3] === 1, a[4] === 1, x, y, span)
+          ?? { kind: 'line', x0, y0, x1: x, y1: y, span }; // coinciding ends: kept as a zero-length line
+        this.ctrlKind = 0;
+        break;
+    }
+    let sub = this.sub;
+    if (sub === null) {
+      // First drawing command after a Z: a new subpath from the previous subpath's start.
+      sub = this.sub = {
+        segments: [], closed: false, startX: this.sx, startY: this.sy,
+        spanStart: start, spanEnd: end, startSpan: span, endSpan: span,
+      };
+    }
+    sub.segments.push(seg);
+    sub.spanEnd = end;
+    sub.endSpan = span;
+    this.cx = x;
+    this.cy = y;
+    // Remember this group for the close fix; swap the buffers so the next group cannot overwrite it.
+    const args = this.args, ts = this.tokStart, te = this.tokEnd;
+    this.args = this.lastArgs; this.tokStart = this.lastTokStart; this.tokEnd = this.lastTokEnd;
+    this.lastArgs = args; this.lastTokStart = ts; this.lastTokEnd = te;
+    this.lastCommand = cmd;
+    this.lastRelative = relative;
+    this.lastStart = start;
+    this.lastEnd = end;
+    this.lastX0 = x0;
+    this.lastY0 = y0;
+  }
+
+  /** Ends the current subpath; `next` describes a relative moveto that follows it directly. */
+  private finishSubpath(next: FollowingMoveto | null): void {
+    const sub = this.sub;
+    if (sub === null) return;
+    this.sub = null;
+    const result: PathSubpath = {
+      segments: sub.segments,
+      closed: sub.closed,
+      startX: sub.startX,
+      startY: sub.startY,
+      span: this.span(sub.spanStart, sub.spanEnd),
+      startSpan: sub.startSpan,
+      endSpan: sub.endSpan,
+    };
+    if (!sub.closed && sub.segments.length > 0) {
+      const arity = getArity(this.lastCommand);
+      const group: ArgumentGroup = {
+        command: this.lastCommand,
+        relative: this.lastRelative,
+        start: this.lastStart,
+        end: this.lastEnd,
+        args: Array.from(this.lastArgs.subarray(0, arity)),
+        tokenStarts: Array.from(this.lastTokStart.subarray(0, arity)),
+        tokenEnds: Array.from(this.lastTokEnd.subarray(0, arity)),
+        x0: this.lastX0,
+        y0: this.lastY0,
+      };
+      result.closeFix = getCloseFix(this.d, this.base, result, group, next);
+    }
+    this.subpaths.push(result);
+  }
+
+  private span(start: number, end: number): SourceSpan {
+    return { start: this.base + start, end: this.base + end };
+  }
+
+  /** The character at `at` quoted for a message, or "the end of the path data". */
+  private describe(at: number): string {
+    if (at >= this.n) return 'the end of the path data';
+    return `'${String.fromCodePoint(this.d.codePointAt(at)!)}'`;
+  }
+
+  /** Error at one character (a whole code point), or an empty span at the end of the data. */
+  private failAtChar(at: number, detail: string): void {
+    const end = at >= this.n ? at : at + (this.d.codePointAt(at)! > 0xffff ? 2 : 1);
+    this.fail(at, end, detail);
+  }
+
+  private fail(start: number, end: number, detail: string): void {
+    if (this.error === undefined) this.error = { span: this.span(start, end), detail };
+  }
+}

@@ -16,3 +16,25 @@ export const DEFAULT_NEAR_CLOSED_TOLERANCE_MM = 0.1;
  *  rounding noise of coordinates converted to mm (~1e-13 mm for drawings under 1 m).
  *  Source: common practice, no source. */
 export const ZERO_LENGTH_MM = 1e-6;
+
+/** Target accuracy of a Bézier segment's length (adaptive Gauss–Legendre, see length.ts): a panel is
+ *  accepted when its 16-point value and the sum of its two halves differ by at most this fraction.
+ *  Quantity: length · Unit: none · Relative (to the panel's length, hence to the segment's).
+ *  Why this size: 1e-9 of a 1 m contour is 1 nm, far below any cutter's resolution, while still a few
+ *  panels for smooth curves (REFERENCES §4.5: one panel already gives ~1e-14 on smooth cubics).
+ *  Source: common practice, no source. */
+export const BEZIER_LENGTH_REL_TOL = 1e-9;
+
+/** Iteration cap: deepest bisection of a Bézier length panel (at most 2^20 panels along one path of the
+ *  recursion). Reaching it is reported (`depthCapped`) and the best estimate so far is returned.
+ *  Why this size: smooth integrands converge after a few levels; only a kink (a cusp missed by the
+ *  split at critical parameters) recurses further, and 2^-20 of the parameter range isolates it.
+ *  Source: REFERENCES §4.5 (QUADPACK-style adaptive scheme, "depth limit ~20"). */
+export const BEZIER_LENGTH_MAX_DEPTH = 20;
+
+/** Stopping tolerance r of Carlson's duplication algorithms for R_F and R_D (ellipticIntegrals.ts):
+ *  the neglected series terms are below r relative.
+ *  Quantity: elliptic integral · Unit: none · Relative. 2^-53 = 1.1102230246251565e-16 (double
+ *  precision unit roundoff), so the series error is below rounding.
+ *  Source: B. C. Carlson, Numer. Algorithms 10 (1995) 13–26, §§2–3 (error bound in terms of r). */
+export const CARLSON_REL_TOL = 2 ** -53;

@@ -1,0 +1,144 @@
+/**
+ * Points, end points and exact bounding boxes of segments. A box is [minX, minY, maxX, maxY] of the
+ * drawn curve itself: Bézier extrema come from the roots of the derivative, arc extrema from the
+ * angles where x or y is extremal — never from control points (a control polygon's box is larger).
+ */
+import { getArcPoint } from './arc';
+import type { Arc, Segment } from '../types';
+
+export type Box = [minX: number, minY: number, maxX: number, maxY: number];
+
+/** Start point as stored (exact file values). */
+export function getSegmentStart(s: Segment): [number, number] {
+  return [s.x0, s.y0];
+}
+
+/** End point as stored (exact file values; for an arc the file's end point, not C + U cos + V sin). */
+export function getSegmentEnd(s: Segment): [number, number] {
+  switch (s.kind) {
+    case 'line':
+    case 'arc':
+      return [s.x1, s.y1];
+    case 'quad':
+      return [s.x2, s.y2];
+    case 'cubic':
+      return [s.x3, s.y3];
+  }
+}
+
+/**
+ * Point at parameter t ∈ [0, 1]. Béziers in Bernstein form (exact at t = 0 and 1); lines by
+ * interpolation; arcs at θ = theta0 + t·sweep (evaluated, so the ends may differ from the stored end
+ * points by rounding — use getSegmentStart/End for those).
+ */
+export function getSegmentPoint(s: Segment, t: number): [number, number] {
+  const u = 1 - t;
+  switch (s.kind) {
+    case 'line':
+      return [u * s.x0 + t * s.x1, u * s.y0 + t * s.y1];
+    case 'quad': {
+      const b0 = u * u, b1 = 2 * u * t, b2 = t * t;
+      return [b0 * s.x0 + b1 * s.x1 + b2 * s.x2, b0 * s.y0 + b1 * s.y1 + b2 * s.y2];
+    }
+    case 'cubic': {
+      const b0 = u * u * u, b1 = 3 * u * u * t, b2 = 3 * u * t * t, b3 = t * t * t;
+      return [
+        b0 * s.x0 + b1 * s.x1 + b2 * s.x2 + b3 * s.x3,
+        b0 * s.y0 + b1 * s.y1 + b2 * s.y2 + b3 * s.y3,
+      ];
+    }
+    case 'arc':
+      return getArcPoint(s, s.theta0 + t * s.sweep);
+  }
+}
+
+/**
+ * Candidate parameters t ∈ (0, 1) of one coordinate of a Bézier whose derivative is
+ * a·t² + b·t + c (a = 0 for a quadratic): the real roots (where that coordinate is extremal) and,
+ * when the discriminant is ≤ 0, the vertex −b/(2a) (where |derivative| is smallest — a double root
+ * that rounding pushed off the real axis lands there). Roots by the cancellation-free form
+ * q = −½(b + sign(b)√disc), t = q/a, c/q [src: Press et al., Numerical Recipes, 3rd ed. §5.6].
+ */
+function pushDerivativeRoots(a: number, b: number, c: number, out: number[]): void {
+  if (a === 0) {
+    if (b !== 0) out.push(-c / b);
+    return;
+  }
+  const disc = b * b - 4 * a * c;
+  if (disc <= 0) {
+    out.push(-b / (2 * a));
+    return;
+  }
+  const q = -0.5 * (b + (b >= 0 ? 1 : -1) * Math.sqrt(disc));
+  out.push(q / a, c / q); // disc > 0, so q ≠ 0
+}
+
+/**
+ * Parameters t ∈ (0, 1), sorted and distinct, where x′(t) = 0 or y′(t) = 0 for a quad or cubic, plus
+ * the vertices described above. They contain the coordinate extrema and every cusp (B′(t) = 0 is a
+ * common root of x′ and y′); a near-cusp lies between the x′ and y′ roots. Empty for lines and arcs.
+ */
+export function getBezierCriticalParameters(s: Segment): number[] {
+  const ts: number[] = [];
+  if (s.kind === 'quad') {
+    // B′/2 = (P1 − P0) + t·(P0 − 2P1 + P2)
+    pushDerivativeRoots(0, s.x0 - 2 * s.x1 + s.x2, s.x1 - s.x0, ts);
+    pushDerivativeRoots(0, s.y0 - 2 * s.y1 + s.y2, s.y1 - s.y0, ts);
+  } else if (s.kind === 'cubic') {
+    // B′/3 = (1−t)²d0 + 2(1−t)t·d1 + t²d2 = (d0 − 2d1 + d2)t² + 2(d1 − d0)t + d0, d_i = P_{i+1} − P_i
+    const dx0 = s.x1 - s.x0, dx1 = s.x2 - s.x1, dx2 = s.x3 - s.x2;
+    const dy0 = s.y1 - s.y0, dy1 = s.y2 - s.y1, dy2 = s.y3 - s.y2;
+    pushDerivativeRoots(dx0 - 2 * dx1 + dx2, 2 * (dx1 - dx0), dx0, ts);
+    pushDerivativeRoots(dy0 - 2 * dy1 + dy2, 2 * (dy1 - dy0), dy0, ts);
+  }
+  return ts
+    .filter((t) => t > 0 && t < 1)
+    .sort((p, q) => p - q)
+    .filter((t, i, all) => i === 0 || t !== all[i - 1]);
+}
+
+/** True when angle θ lies on the arc's sweep from theta0 (ends included). */
+function isAngleOnArc(a: Arc, theta: number): boolean {
+  const turn = 2 * Math.PI;
+  if (Math.abs(a.sweep) >= turn) return true;
+  const offset = a.sweep >= 0 ? theta - a.theta0 : a.theta0 - theta;
+  const normalised = ((offset % turn) + turn) % turn;
+  return normalised <= Math.abs(a.sweep);
+}
+
+function getArcBounds(a: Arc): Box {
+  const box: Box = [
+    Math.min(a.x0, a.x1), Math.min(a.y0, a.y1),
+    Math.max(a.x0, a.x1), Math.max(a.y0, a.y1),
+  ];
+  // x(θ) = cx + ux cos θ + vx sin θ is largest, cx + √(ux² + vx²), at θ = atan2(vx, ux) and
+  // smallest, cx − √(ux² + vx²), half a turn later; the same for y with (uy, vy).
+  const rx = Math.hypot(a.ux, a.vx);
+  const ry = Math.hypot(a.uy, a.vy);
+  const thetaMaxX = Math.atan2(a.vx, a.ux);
+  const thetaMaxY = Math.atan2(a.vy, a.uy);
+  if (isAngleOnArc(a, thetaMaxX)) box[2] = Math.max(box[2], a.cx + rx);
+  if (isAngleOnArc(a, thetaMaxX + Math.PI)) box[0] = Math.min(box[0], a.cx - rx);
+  if (isAngleOnArc(a, thetaMaxY)) box[3] = Math.max(box[3], a.cy + ry);
+  if (isAngleOnArc(a, thetaMaxY + Math.PI)) box[1] = Math.min(box[1], a.cy - ry);
+  return box;
+}
+
+/**
+ * Exact bounding box [minX, minY, maxX, maxY] of a segment: its end points plus the curve at its
+ * critical parameters (Béziers) or its extremal angles (arcs). Critical parameters carry the
+ * rounding of a quadratic's roots, so a box edge may sit a few ulps inside the true extremum.
+ */
+export function getSegmentBounds(s: Segment): Box {
+  if (s.kind === 'arc') return getArcBounds(s);
+  const [ex, ey] = getSegmentEnd(s);
+  const box: Box = [Math.min(s.x0, ex), Math.min(s.y0, ey), Math.max(s.x0, ex), Math.max(s.y0, ey)];
+  for (const t of getBezierCriticalParameters(s)) {
+    const [x, y] = getSegmentPoint(s, t);
+    if (x < box[0]) box[0] = x;
+    if (y < box[1]) box[1] = y;
+    if (x > box[2]) box[2] = x;
+    if (y > box[3]) box[3] = y;
+  }
+  return box;
+}

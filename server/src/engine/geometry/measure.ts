@@ -1,0 +1,114 @@
+/**
+ * Figures of one contour: gap, drawn length, perimeter, signed area, orientation, isoperimetric
+ * quotient and deficit, exact bounding box. Per-segment helpers are re-exported so callers have one
+ * import for "measure a segment".
+ */
+import { CompensatedSum, getSegmentArea } from './area';
+import { getSegmentBounds, getSegmentEnd } from './bounds';
+import { getSegmentLengthEstimate } from './length';
+import type { Contour, ContourMetrics, Measured, YAxis } from '../types';
+
+export { CompensatedSum, getSegmentArea } from './area';
+export { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart } from './bounds';
+export type { Box } from './bounds';
+export { getArcLength, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
+export type { LengthEstimate } from './length';
+
+/** measureContour's figures plus what it knows about their accuracy. */
+export interface DetailedContourMetrics {
+  readonly metrics: ContourMetrics;
+  /** True when some Bézier length stopped at BEZIER_LENGTH_MAX_DEPTH (see LengthEstimate). */
+  readonly lengthDepthCapped: boolean;
+}
+
+const OPEN: Measured = { value: null, reason: 'open contour' };
+const ZERO_LENGTH: Measured = { value: null, reason: 'zero length' };
+
+/**
+ * Measures a contour (see measureContour) and also reports whether a Bézier length hit the
+ * quadrature's depth cap.
+ *
+ * Definitions:
+ * - gapMm: 0 when closed, else the distance from the last segment's end to the start point.
+ * - lengthMm: Σ segment lengths, plus the closing chord when closed and the last end ≠ start.
+ * - signed area: Green's theorem over the segments and the closing chord, from the start point as
+ *   local origin (so the closing chord, which ends at the origin, contributes exactly 0), summed
+ *   with Neumaier compensation (REFERENCES §4.1, §7.4). For a self-crossing loop it is the
+ *   winding-number-weighted area ∫ w(x, y) dA, so lobes of opposite turn cancel; areaMm2 = |that|.
+ * - q = 4πA/L² with A = areaMm2 and deficit L² − 4πA (REFERENCES §1–2): closed contours with L > 0.
+ * - orientation: a positive signed area is clockwise on screen for y-down files and
+ *   counter-clockwise for y-up files (types.ts convention); null when the area is undefined or 0.
+ */
+export function measureContourDetailed(contour: Contour, yAxis: YAxis): DetailedContourMetrics {
+  const { segments, closed, startX, startY } = contour;
+  const length = new CompensatedSum();
+  const area = new CompensatedSum();
+  let lengthDepthCapped = false;
+  let minX = startX, minY = startY, maxX = startX, maxY = startY;
+  let endX = startX, endY = startY;
+  for (const s of segments) {
+    const l = getSegmentLengthEstimate(s);
+    length.add(l.value);
+    if (l.depthCapped) lengthDepthCapped = true;
+    area.add(getSegmentArea(s, startX, startY));
+    const [x0, y0, x1, y1] = getSegmentBounds(s);
+    if (x0 < minX) minX = x0;
+    if (y0 < minY) minY = y0;
+    if (x1 > maxX) maxX = x1;
+    if (y1 > maxY) maxY = y1;
+    [endX, endY] = getSegmentEnd(s);
+  }
+  const endToStart = Math.hypot(startX - endX, startY - endY);
+  if (closed) length.add(endToStart);
+  const lengthMm = length.value;
+
+  let perimeterMm: Measured = OPEN;
+  let signedAreaMm2: Measured = OPEN;
+  let areaMm2: Measured = OPEN;
+  let q: Measured = OPEN;
+  let deficitMm2: Measured = OPEN;
+  let orientation: ContourMetrics['orientation'] = null;
+  if (closed) {
+    const signed = area.value;
+    const absolute = Math.abs(signed);
+    perimeterMm = { value: lengthMm };
+    signedAreaMm2 = { value: signed };
+    areaMm2 = { value: absolute };
+    if (lengthMm > 0) {
+      const l2 = lengthMm * lengthMm;
+      q = { value: (4 * Math.PI * absolute) / l2 };
+      deficitMm2 = { value: l2 - 4 * Math.PI * absolute };
+    } else {
+      q = ZERO_LENGTH;
+      deficitMm2 = ZERO_LENGTH;
+    }
+    if (signed !== 0) orientation = (signed > 0) === (yAxis === 'down') ? 'cw' : 'ccw';
+  }
+
+  return {
+    metrics: {
+      closed,
+      gapMm: closed ? 0 : endToStart,
+      lengthMm,
+      perimeterMm,
+      signedAreaMm2,
+      areaMm2,
+      orientation,
+      q,
+      deficitMm2,
+      bboxMm: [minX, minY, maxX, maxY],
+      segmentCount: segments.length,
+    },
+    lengthDepthCapped,
+  };
+}
+
+/**
+ * The figures of one contour, in the file's axes and mm (definitions at measureContourDetailed).
+ * Lengths of lines and arcs are exact, of Béziers within BEZIER_LENGTH_REL_TOL; the rare case where
+ * the quadrature hit its depth cap is dropped here (ContourMetrics has no field for it) — callers
+ * that need it use measureContourDetailed.
+ */
+export function measureContour(contour: Contour, yAxis: YAxis): ContourMetrics {
+  return measureContourDetailed(contour, yAxis).metrics;
+}

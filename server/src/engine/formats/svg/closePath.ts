@@ -101,8 +101,9 @@ function getMoveEndEdit(
   const rewrite = (tokenFrom: number, tokenTo: number, text: string): TextEdit => {
     const start = tokenStarts[tokenFrom]!;
     // Keep the new first number from running into a number written just before it (`-4` + `7`).
+    // String(n) starts with a digit or '-', never '.'; a '-' always starts a new number.
     const before = start > 0 ? d.charCodeAt(start - 1) : -1;
-    const glue = (before >= 48 && before <= 57) || before === 46 ? ' ' : '';
+    const glue = text[0] !== '-' && ((before >= 48 && before <= 57) || before === 46) ? ' ' : '';
     return { span: at(start, tokenEnds[tokenTo]!), newText: `${glue}${text}Z` };
   };
   if (command === 'H') {

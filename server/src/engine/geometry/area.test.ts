@@ -65,4 +65,12 @@ describe('CompensatedSum', () => {
     for (const x of [1, 1e100, 1, -1e100]) sum.add(x);
     expect(sum.value).toBe(2);
   });
+
+  it('returns Infinity, not NaN, once a summand overflows (IEEE 754 semantics of the plain sum)', () => {
+    const sum = new CompensatedSum();
+    sum.add(1);
+    sum.add(Infinity);
+    sum.add(2);
+    expect(sum.value).toBe(Infinity);
+  });
 });

@@ -23,6 +23,8 @@ export class CompensatedSum {
   }
 
   get value(): number {
+    // After an overflow the compensation is ∞ − ∞ = NaN; the sum alone is the honest answer then.
+    if (!Number.isFinite(this.sum)) return this.sum;
     return this.sum + this.compensation;
   }
 }

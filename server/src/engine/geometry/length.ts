@@ -61,7 +61,8 @@ function refine(speed: Speed, lo: number, hi: number, whole: number, depth: numb
   const left = gauss16(speed, lo, mid);
   const right = gauss16(speed, mid, hi);
   const halves = left + right;
-  if (Math.abs(halves - whole) <= BEZIER_LENGTH_REL_TOL * Math.abs(halves)) return halves;
+  // An overflowed speed (coordinates near the double limit) makes the test NaN: stop, do not bisect 2^20 times.
+  if (!Number.isFinite(halves) || Math.abs(halves - whole) <= BEZIER_LENGTH_REL_TOL * Math.abs(halves)) return halves;
   if (depth >= BEZIER_LENGTH_MAX_DEPTH) {
     state.depthCapped = true;
     return halves;

@@ -163,6 +163,19 @@ describe('measureContour definitions', () => {
     expect(m.orientation).toBeNull();
   });
 
+  it('never returns NaN, even for coordinates that overflow products (types.ts: undefined metrics carry a reason)', () => {
+    const huge = measureContour(contourFromSegments([cubic(0, 0, 1e300, 1e300, -1e300, 1e300, 1e300, 0)], true), 'up');
+    for (const k of ['perimeterMm', 'signedAreaMm2', 'areaMm2', 'q', 'deficitMm2'] as const) {
+      const metric = huge[k];
+      if (metric.value === null) expect(metric.reason).toBe('numeric overflow');
+      else expect(Number.isFinite(metric.value)).toBe(true);
+    }
+    expect(Number.isNaN(huge.lengthMm)).toBe(false);
+    const big = measureContour(contourFromSegments(rectangleSegments(0, 0, 1e160, 1e160), true), 'up');
+    expect(big.perimeterMm).toEqual({ value: 4e160 });
+    expect(big.q).toEqual({ value: null, reason: 'numeric overflow' });
+  });
+
   it('reports no depth cap for ordinary curves', () => {
     expect(measureContourDetailed(contourFromSegments(fourCubicCircle(0, 0, 1), true), 'up').lengthDepthCapped).toBe(false);
   });

@@ -23,6 +23,8 @@ export interface DetailedContourMetrics {
 
 const OPEN: Measured = { value: null, reason: 'open contour' };
 const ZERO_LENGTH: Measured = { value: null, reason: 'zero length' };
+/** Coordinates near the double limit (~1e154 and up) overflow squares and products. */
+const OVERFLOW: Measured = { value: null, reason: 'numeric overflow' };
 
 /**
  * Measures a contour (see measureContour) and also reports whether a Bézier length hit the
@@ -36,6 +38,8 @@ const ZERO_LENGTH: Measured = { value: null, reason: 'zero length' };
  *   with Neumaier compensation (REFERENCES §4.1, §7.4). For a self-crossing loop it is the
  *   winding-number-weighted area ∫ w(x, y) dA, so lobes of opposite turn cancel; areaMm2 = |that|.
  * - q = 4πA/L² with A = areaMm2 and deficit L² − 4πA (REFERENCES §1–2): closed contours with L > 0.
+ * - Where squares or products overflow (coordinates beyond ~1e154 mm) a figure is
+ *   { value: null, reason: 'numeric overflow' } instead of NaN or Infinity.
  * - orientation: a positive signed area is clockwise on screen for y-down files and
  *   counter-clockwise for y-up files (types.ts convention); null when the area is undefined or 0.
  */
@@ -68,16 +72,22 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
   let q: Measured = OPEN;
   let deficitMm2: Measured = OPEN;
   let orientation: ContourMetrics['orientation'] = null;
-  if (closed) {
-    const signed = area.value;
+  const signed = area.value;
+  if (closed && !(Number.isFinite(signed) && Number.isFinite(lengthMm))) {
+    // Coordinates near the double limit overflow the products; say so rather than return NaN.
+    perimeterMm = Number.isFinite(lengthMm) ? { value: lengthMm } : OVERFLOW;
+    signedAreaMm2 = areaMm2 = q = deficitMm2 = OVERFLOW;
+  } else if (closed) {
     const absolute = Math.abs(signed);
     perimeterMm = { value: lengthMm };
     signedAreaMm2 = { value: signed };
     areaMm2 = { value: absolute };
     if (lengthMm > 0) {
       const l2 = lengthMm * lengthMm;
-      q = { value: (4 * Math.PI * absolute) / l2 };
-      deficitMm2 = { value: l2 - 4 * Math.PI * absolute };
+      const qValue = (4 * Math.PI * absolute) / l2;
+      const deficit = l2 - 4 * Math.PI * absolute;
+      q = Number.isFinite(l2) ? { value: qValue } : OVERFLOW;
+      deficitMm2 = Number.isFinite(deficit) ? { value: deficit } : OVERFLOW;
     } else {
       q = ZERO_LENGTH;
       deficitMm2 = ZERO_LENGTH;

@@ -269,6 +269,15 @@ describe('readSvg: what is drawn (SVG 2 Rendering, Structural)', () => {
     ]);
   });
 
+  it('stops expanding uses that multiply exponentially (6 levels × 10 uses) and says so', () => {
+    let defs = '<g id="a0"><rect width="1" height="1"/></g>';
+    for (let k = 1; k <= 6; k++) defs += `<g id="a${k}">${`<use href="#a${k - 1}"/>`.repeat(10)}</g>`;
+    const { contours, problems } = read(mmDoc(`<defs>${defs}</defs><use href="#a6"/>`));
+    expect(contours.length).toBeLessThanOrEqual(100_000);
+    expect(contours.length).toBeGreaterThan(1000);
+    expect(problems.map((p) => p.messageId)).toContain('unsupported');
+  });
+
   it('draws the first switch child without unmet requiredExtensions (SVG 2 Structural, "The switch element")', () => {
     const text = mmDoc('<switch><foreignObject requiredExtensions="urn:x"><rect width="1" height="1"/></foreignObject><g><rect id="yes" width="1" height="1"/></g><rect id="no" width="1" height="1"/></switch>');
     expect(read(text).contours.map((c) => c.id)).toEqual(['yes']);

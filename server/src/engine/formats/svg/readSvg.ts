@@ -42,7 +42,7 @@ export function readSvg(text: string, options: { assumedUnit: AssumedUnit }): Re
  * documents whose nested uses multiply exponentially (10 levels × 10 uses = 10¹⁰ shapes).
  * Source: common practice, no source; far above any real cutting file.
  */
-const MAX_USE_INSTANCES = 200_000;
+const MAX_USE_INSTANCES = 100_000;
 
 interface WalkState {
   /** User units of the current element's parent coordinate system → mm. */

@@ -1,0 +1,333 @@
+/**
+ * Monotone pieces: every segment of a set of contours cut where x′ or y′ changes sign, stored flat
+ * (one Float64Array, STRIDE numbers per piece) for the broad and narrow phases of intersect.ts.
+ *
+ * Invariant: a piece is monotone in x and in y, so its bounding box is the box of its two end points,
+ * and so is the box of any sub-piece (this is what makes the subdivision in intersect.ts cheap).
+ * [src: common practice for curve–curve intersection, e.g. paper.js `Curve.getMonoCurves` in
+ * src/path/Curve.js splits at the roots of the derivative for the same reason]
+ *
+ * Layout of piece i at offset o = i·STRIDE:
+ *   o+0 kind (KIND_*), o+1 segment index in its contour (−1 = the implicit closing line),
+ *   o+2, o+3 the piece's parameter range [t0, t1] in its segment (arcs: fraction of the sweep),
+ *   o+4..o+7 start and end point (exact copies of the file's points at segment ends),
+ *   quad: o+8, o+9 control point; cubic: o+8..o+11 the two control points;
+ *   arc: o+8 cx, o+9 cy, o+10 ux, o+11 uy, o+12 vx, o+13 vy, o+14 θ at start, o+15 θ at end.
+ */
+import type { Contour, Segment } from '../types';
+import { getPolynomialRoots } from './intersectRoots';
+
+export const STRIDE = 16;
+export const KIND_LINE = 0;
+export const KIND_QUAD = 1;
+export const KIND_CUBIC = 2;
+export const KIND_ARC = 3;
+
+/** How the pieces of one contour form a chain. */
+export interface PieceChain {
+  /** Position of the contour in the array given to `buildPieces`. */
+  readonly contour: number;
+  readonly first: number;
+  readonly count: number;
+  /** The chain closes on itself (closed contour, or end point equal to the start point). */
+  readonly cyclic: boolean;
+}
+
+export interface Pieces {
+  readonly buf: Float64Array;
+  readonly contourOf: Int32Array;
+  readonly count: number;
+  readonly chains: readonly PieceChain[];
+  /** Bounding box of all pieces [minX, minY, maxX, maxY] (Infinity when empty). */
+  readonly bbox: readonly [number, number, number, number];
+}
+
+class PieceWriter {
+  buf = new Float64Array(STRIDE * 64);
+  contourOf = new Int32Array(64);
+  count = 0;
+
+  next(contour: number): number {
+    if ((this.count + 1) * STRIDE > this.buf.length) {
+      const b = new Float64Array(this.buf.length * 2);
+      b.set(this.buf);
+      this.buf = b;
+      const c = new Int32Array(this.contourOf.length * 2);
+      c.set(this.contourOf);
+      this.contourOf = c;
+    }
+    this.contourOf[this.count] = contour;
+    return this.count++ * STRIDE;
+  }
+}
+
+/** Parameters in (0, 1) where a·t² + b·t + c = 0 (the derivative of one Bézier coordinate). */
+function addDerivativeRoots(ts: number[], c0: number, c1: number, c2: number): void {
+  for (const t of getPolynomialRoots([c0, c1, c2], 0, 1, 0)) if (t > 0 && t < 1) ts.push(t);
+}
+
+function splitPoints(ts: number[]): number[] {
+  ts.sort((a, b) => a - b);
+  const out: number[] = [];
+  for (const t of ts) if (out.length === 0 || t - out[out.length - 1]! > 1e-12) out.push(t);
+  return out;
+}
+
+/** Splits a cubic (8 numbers) at t into two; returns [left, right]. de Casteljau. */
+export function splitCubic(p: ArrayLike<number>, t: number): [number[], number[]] {
+  const [x0, y0, x1, y1, x2, y2, x3, y3] = p as unknown as number[];
+  const ax = x0! + (x1! - x0!) * t, ay = y0! + (y1! - y0!) * t;
+  const bx = x1! + (x2! - x1!) * t, by = y1! + (y2! - y1!) * t;
+  const cx = x2! + (x3! - x2!) * t, cy = y2! + (y3! - y2!) * t;
+  const dx = ax + (bx - ax) * t, dy = ay + (by - ay) * t;
+  const ex = bx + (cx - bx) * t, ey = by + (cy - by) * t;
+  const fx = dx + (ex - dx) * t, fy = dy + (ey - dy) * t;
+  return [
+    [x0!, y0!, ax, ay, dx, dy, fx, fy],
+    [fx, fy, ex, ey, cx, cy, x3!, y3!],
+  ];
+}
+
+/** Splits a quadratic (6 numbers) at t. */
+export function splitQuad(p: ArrayLike<number>, t: number): [number[], number[]] {
+  const [x0, y0, x1, y1, x2, y2] = p as unknown as number[];
+  const ax = x0! + (x1! - x0!) * t, ay = y0! + (y1! - y0!) * t;
+  const bx = x1! + (x2! - x1!) * t, by = y1! + (y2! - y1!) * t;
+  const cx = ax + (bx - ax) * t, cy = ay + (by - ay) * t;
+  return [
+    [x0!, y0!, ax, ay, cx, cy],
+    [cx, cy, bx, by, x2!, y2!],
+  ];
+}
+
+function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, pts: number[], t0: number, t1: number): void {
+  const o = w.next(contour);
+  const b = w.buf;
+  b[o] = kind;
+  b[o + 1] = seg;
+  b[o + 2] = t0;
+  b[o + 3] = t1;
+  const n = pts.length;
+  b[o + 4] = pts[0]!;
+  b[o + 5] = pts[1]!;
+  b[o + 6] = pts[n - 2]!;
+  b[o + 7] = pts[n - 1]!;
+  for (let k = 2; k < n - 2; k++) b[o + 6 + k] = pts[k]!;
+}
+
+function addBezier(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'quad' | 'cubic' }): void {
+  const cubic = s.kind === 'cubic';
+  const pts = cubic
+    ? [s.x0, s.y0, s.x1, s.y1, s.x2, s.y2, s.x3, s.y3]
+    : [s.x0, s.y0, s.x1, s.y1, s.x2, s.y2];
+  const ts: number[] = [];
+  for (let d = 0; d < 2; d++) {
+    if (cubic) {
+      const p0 = pts[d]!, p1 = pts[2 + d]!, p2 = pts[4 + d]!, p3 = pts[6 + d]!;
+      // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t:
+      const a = p1 - p0, b = p2 - p1, c = p3 - p2;
+      addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
+    } else {
+      const p0 = pts[d]!, p1 = pts[2 + d]!, p2 = pts[4 + d]!;
+      addDerivativeRoots(ts, p1 - p0, p0 - 2 * p1 + p2, 0);
+    }
+  }
+  const kind = cubic ? KIND_CUBIC : KIND_QUAD;
+  let rest = pts;
+  let t0 = 0;
+  for (const t of splitPoints(ts)) {
+    const local = (t - t0) / (1 - t0);
+    const [left, right] = cubic ? splitCubic(rest, local) : splitQuad(rest, local);
+    pushBezier(w, contour, seg, kind, left, t0, t);
+    rest = right;
+    t0 = t;
+  }
+  pushBezier(w, contour, seg, kind, rest, t0, 1);
+}
+
+function addArc(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'arc' }): void {
+  const { ux, uy, vx, vy, theta0, sweep } = s;
+  // x′(θ) = −ux sin θ + vx cos θ = 0 at θ = atan2(vx, ux) + kπ; likewise for y.
+  const ts: number[] = [];
+  for (const base of [Math.atan2(vx, ux), Math.atan2(vy, uy)]) {
+    for (let k = -4; k <= 4; k++) {
+      const f = (base + k * Math.PI - theta0) / sweep;
+      if (f > 1e-12 && f < 1 - 1e-12) ts.push(f);
+    }
+  }
+  let prevF = 0;
+  let px = s.x0, py = s.y0;
+  const cuts = splitPoints(ts);
+  for (let i = 0; i <= cuts.length; i++) {
+    const f = i < cuts.length ? cuts[i]! : 1;
+    const th = theta0 + f * sweep;
+    const ex = i < cuts.length ? s.cx + ux * Math.cos(th) + vx * Math.sin(th) : s.x1;
+    const ey = i < cuts.length ? s.cy + uy * Math.cos(th) + vy * Math.sin(th) : s.y1;
+    const o = w.next(contour);
+    const b = w.buf;
+    b[o] = KIND_ARC;
+    b[o + 1] = seg;
+    b[o + 2] = prevF;
+    b[o + 3] = f;
+    b[o + 4] = px; b[o + 5] = py; b[o + 6] = ex; b[o + 7] = ey;
+    b[o + 8] = s.cx; b[o + 9] = s.cy; b[o + 10] = ux; b[o + 11] = uy; b[o + 12] = vx; b[o + 13] = vy;
+    b[o + 14] = theta0 + prevF * sweep;
+    b[o + 15] = th;
+    prevF = f;
+    px = ex;
+    py = ey;
+  }
+}
+
+function addLine(w: PieceWriter, contour: number, seg: number, x0: number, y0: number, x1: number, y1: number): void {
+  const o = w.next(contour);
+  const b = w.buf;
+  b[o] = KIND_LINE;
+  b[o + 1] = seg;
+  b[o + 2] = 0;
+  b[o + 3] = 1;
+  b[o + 4] = x0; b[o + 5] = y0; b[o + 6] = x1; b[o + 7] = y1;
+}
+
+function segmentEnd(s: Segment): [number, number] {
+  switch (s.kind) {
+    case 'line': return [s.x1, s.y1];
+    case 'quad': return [s.x2, s.y2];
+    case 'cubic': return [s.x3, s.y3];
+    case 'arc': return [s.x1, s.y1];
+  }
+}
+
+/** Size of a segment's control polygon seen from its start: 0 means the segment is a single point. */
+function controlExtent(s: Segment): number {
+  if (s.kind === 'arc') {
+    const r = Math.max(Math.hypot(s.ux, s.uy), Math.hypot(s.vx, s.vy));
+    return Math.max(Math.abs(s.x1 - s.x0), Math.abs(s.y1 - s.y0), r * Math.abs(s.sweep));
+  }
+  const pts = s.kind === 'cubic' ? [s.x1, s.y1, s.x2, s.y2, s.x3, s.y3]
+    : s.kind === 'quad' ? [s.x1, s.y1, s.x2, s.y2]
+    : [s.x1, s.y1];
+  let m = 0;
+  for (let i = 0; i < pts.length; i += 2) m = Math.max(m, Math.abs(pts[i]! - s.x0), Math.abs(pts[i + 1]! - s.y0));
+  return m;
+}
+
+/**
+ * Cuts the contours into monotone pieces. Segments whose control points all lie within
+ * `pointTol` of their start are left out (zero-length segments are their own check); a closed
+ * contour whose last end point is not its start gets an implicit closing line (segment −1).
+ */
+export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
+  const w = new PieceWriter();
+  const chains: PieceChain[] = [];
+  for (let ci = 0; ci < contours.length; ci++) {
+    const c = contours[ci]!;
+    const first = w.count;
+    let lastX = c.startX, lastY = c.startY;
+    for (let si = 0; si < c.segments.length; si++) {
+      const s = c.segments[si]!;
+      if (controlExtent(s) <= pointTol) continue;
+      switch (s.kind) {
+        case 'line': addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1); break;
+        case 'quad': case 'cubic': addBezier(w, ci, si, s); break;
+        case 'arc':
+          if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1);
+          else addArc(w, ci, si, s);
+          break;
+      }
+      [lastX, lastY] = segmentEnd(s);
+    }
+    const gap = Math.hypot(lastX - c.startX, lastY - c.startY);
+    if (c.closed && gap > pointTol) addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);
+    const count = w.count - first;
+    chains.push({ contour: ci, first, count, cyclic: count > 0 && (c.closed || gap <= pointTol) });
+  }
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const b = w.buf;
+  for (let i = 0; i < w.count; i++) {
+    const o = i * STRIDE;
+    minX = Math.min(minX, b[o + 4]!, b[o + 6]!);
+    maxX = Math.max(maxX, b[o + 4]!, b[o + 6]!);
+    minY = Math.min(minY, b[o + 5]!, b[o + 7]!);
+    maxY = Math.max(maxY, b[o + 5]!, b[o + 7]!);
+  }
+  return { buf: w.buf, contourOf: w.contourOf, count: w.count, chains, bbox: [minX, minY, maxX, maxY] };
+}
+
+/** Point of piece i at local parameter u ∈ [0, 1]. */
+export function getPiecePoint(buf: Float64Array, i: number, u: number): [number, number] {
+  const o = i * STRIDE;
+  if (u === 0) return [buf[o + 4]!, buf[o + 5]!];
+  if (u === 1) return [buf[o + 6]!, buf[o + 7]!];
+  const v = 1 - u;
+  switch (buf[o]) {
+    case KIND_LINE:
+      return [buf[o + 4]! * v + buf[o + 6]! * u, buf[o + 5]! * v + buf[o + 7]! * u];
+    case KIND_QUAD: {
+      const a = v * v, b = 2 * u * v, c = u * u;
+      return [a * buf[o + 4]! + b * buf[o + 8]! + c * buf[o + 6]!, a * buf[o + 5]! + b * buf[o + 9]! + c * buf[o + 7]!];
+    }
+    case KIND_CUBIC: {
+      const a = v * v * v, b = 3 * u * v * v, c = 3 * u * u * v, d = u * u * u;
+      return [
+        a * buf[o + 4]! + b * buf[o + 8]! + c * buf[o + 10]! + d * buf[o + 6]!,
+        a * buf[o + 5]! + b * buf[o + 9]! + c * buf[o + 11]! + d * buf[o + 7]!,
+      ];
+    }
+    default: {
+      const th = buf[o + 14]! + u * (buf[o + 15]! - buf[o + 14]!);
+      const cs = Math.cos(th), sn = Math.sin(th);
+      return [buf[o + 8]! + buf[o + 10]! * cs + buf[o + 12]! * sn, buf[o + 9]! + buf[o + 11]! * cs + buf[o + 13]! * sn];
+    }
+  }
+}
+
+/** Derivative d/du of piece i at local parameter u. */
+export function getPieceTangent(buf: Float64Array, i: number, u: number): [number, number] {
+  const o = i * STRIDE;
+  const v = 1 - u;
+  switch (buf[o]) {
+    case KIND_LINE:
+      return [buf[o + 6]! - buf[o + 4]!, buf[o + 7]! - buf[o + 5]!];
+    case KIND_QUAD:
+      return [
+        2 * (v * (buf[o + 8]! - buf[o + 4]!) + u * (buf[o + 6]! - buf[o + 8]!)),
+        2 * (v * (buf[o + 9]! - buf[o + 5]!) + u * (buf[o + 7]! - buf[o + 9]!)),
+      ];
+    case KIND_CUBIC: {
+      const a = 3 * v * v, b = 6 * u * v, c = 3 * u * u;
+      return [
+        a * (buf[o + 8]! - buf[o + 4]!) + b * (buf[o + 10]! - buf[o + 8]!) + c * (buf[o + 6]! - buf[o + 10]!),
+        a * (buf[o + 9]! - buf[o + 5]!) + b * (buf[o + 11]! - buf[o + 9]!) + c * (buf[o + 7]! - buf[o + 11]!),
+      ];
+    }
+    default: {
+      const dth = buf[o + 15]! - buf[o + 14]!;
+      const th = buf[o + 14]! + u * dth;
+      const cs = Math.cos(th), sn = Math.sin(th);
+      return [dth * (-buf[o + 10]! * sn + buf[o + 12]! * cs), dth * (-buf[o + 11]! * sn + buf[o + 13]! * cs)];
+    }
+  }
+}
+
+/**
+ * Direction of the piece leaving its start (end = false) or arriving at its end (end = true), as a
+ * point: for a line the other end point (exact), for a Bézier the nearest distinct control point
+ * (the tangent there, exact), for an arc the point one tangent-length away.
+ */
+export function getPieceEndProbe(buf: Float64Array, i: number, end: boolean): [number, number] {
+  const o = i * STRIDE;
+  const kind = buf[o];
+  const px = buf[o + (end ? 6 : 4)]!, py = buf[o + (end ? 7 : 5)]!;
+  if (kind === KIND_LINE) return [buf[o + (end ? 4 : 6)]!, buf[o + (end ? 5 : 7)]!];
+  if (kind === KIND_QUAD || kind === KIND_CUBIC) {
+    const order = kind === KIND_QUAD ? [8, end ? 4 : 6] : end ? [10, 8, 4] : [8, 10, 6];
+    for (const k of order) {
+      const x = buf[o + k]!, y = buf[o + k + 1]!;
+      if (x !== px || y !== py) return [x, y];
+    }
+    return [px, py];
+  }
+  const [tx, ty] = getPieceTangent(buf, i, end ? 1 : 0);
+  return end ? [px - tx, py - ty] : [px + tx, py + ty];
+}

@@ -394,8 +394,10 @@ class SvgReader {
     const { value, offsets } = getPositionedValue(this.text, attr, this.doc.entities);
     const base = attr.span.start;
     const parsed = parsePathData(value, base);
+    const last = value.length;
+    const mapOffset = (o: number) => offsets![Math.min(Math.max(o - base, 0), last)]!;
     const mapSpan = offsets
-      ? (s: SourceSpan): SourceSpan => ({ start: offsets[s.start - base]!, end: offsets[s.end - base]! })
+      ? (s: SourceSpan): SourceSpan => ({ start: mapOffset(s.start), end: mapOffset(s.end) })
       : (s: SourceSpan): SourceSpan => s;
     if (parsed.error) this.report('pathData', mapSpan(parsed.error.span), { detail: parsed.error.detail });
     if (parsed.subpaths.length === 0) return;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { arcFromSvgEndpoints } from './arc';
-import { getArcLength, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
+import { getArcLength, getArcLengthEstimate, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
 import { arc, circleArcs, CIRCLE_CUBIC_K, cubic, ellipseArc, line, quad } from '../../../../test/support/shapes';
 import type { Arc } from '../types';
 
@@ -81,6 +81,21 @@ describe('getArcLength', () => {
     it(`gives the length column of REFERENCES §5.5 for ${d}`, () => {
       const a = arcFromSvgEndpoints(0, 0, rx, ry, phi, large, sweep, 10, 0, { start: 0, end: 0 }) as Arc;
       expect(rel(getArcLength(a), length)).toBeLessThan(1e-14);
+    });
+  }
+
+  for (const sweep of [1e-2, 1e-5, 1e-8, -1e-8, 1.5]) {
+    it(`keeps its relative accuracy on a short elliptical arc of ${sweep} rad (reference: Simpson, 2000 panels)`, () => {
+      const a = arc(0, 0, 10, 0, 0, 3, 1.1, sweep);
+      const n = 2000, h = Math.abs(sweep) / n, dir = Math.sign(sweep);
+      let s = 0;
+      for (let i = 0; i <= n; i++) {
+        const t = 1.1 + dir * i * h;
+        s += (i === 0 || i === n ? 1 : i % 2 === 1 ? 4 : 2) * Math.hypot(10 * Math.sin(t), 3 * Math.cos(t));
+      }
+      const estimate = getArcLengthEstimate(a);
+      expect(rel(estimate.value, (s * h) / 3)).toBeLessThan(1e-12);
+      expect(estimate.depthCapped).toBe(false);
     });
   }
 

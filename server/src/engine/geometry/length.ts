@@ -1,20 +1,20 @@
 /**
  * Segment lengths. Lines and circular arcs in closed form, elliptical arcs through the incomplete
- * elliptic integral of the second kind (ellipticIntegrals.ts), Béziers by adaptive 16-point
+ * elliptic integral of the second kind (ellipticIntegrals.ts; short ones by quadrature), Béziers by adaptive 16-point
  * Gauss–Legendre quadrature of the speed |B′(t)| after splitting at the critical parameters.
  */
 import { getBezierCriticalParameters } from './bounds';
 import { ellipticE } from './ellipticIntegrals';
-import { BEZIER_LENGTH_MAX_DEPTH, BEZIER_LENGTH_REL_TOL } from './tolerances';
+import { ARC_LENGTH_QUADRATURE_REL_TOL, BEZIER_LENGTH_MAX_DEPTH, BEZIER_LENGTH_REL_TOL } from './tolerances';
 import type { Arc, Cubic, Quad, Segment } from '../types';
 
 /** A length with a note on how far to trust it. */
 export interface LengthEstimate {
   readonly value: number;
   /**
-   * True when the adaptive quadrature of a Bézier stopped at BEZIER_LENGTH_MAX_DEPTH somewhere: the
-   * value is then the best estimate reached, not guaranteed to BEZIER_LENGTH_REL_TOL.
-   * Always false for lines and arcs.
+   * True when the adaptive quadrature (Béziers, short elliptical arcs) stopped at
+   * BEZIER_LENGTH_MAX_DEPTH somewhere: the value is then the best estimate reached, not guaranteed to
+   * the quadrature's tolerance. Always false for lines, circular arcs and arcs of a quarter turn or more.
    */
   readonly depthCapped: boolean;
 }
@@ -46,15 +46,16 @@ function gauss16(speed: Speed, lo: number, hi: number): number {
 }
 
 interface QuadratureState {
+  readonly relTol: number;
   depthCapped: boolean;
 }
 
 /**
  * Adaptive bisection (QUADPACK-style, REFERENCES §4.5; Piessens et al. 1983): accept a panel when its
  * G16 value `whole` and the sum of the G16 values of its halves differ by at most
- * BEZIER_LENGTH_REL_TOL of that sum, and return the sum. That difference bounds the error of `whole`,
+ * state.relTol of that sum, and return the sum. That difference bounds the error of `whole`,
  * which is far larger than the error of the halves for smooth integrands, so the accepted total is
- * within BEZIER_LENGTH_REL_TOL relative (each panel is, and all panel values are positive).
+ * within state.relTol relative (each panel is, and all panel values are positive).
  */
 function refine(speed: Speed, lo: number, hi: number, whole: number, depth: number, state: QuadratureState): number {
   const mid = (lo + hi) / 2;
@@ -62,7 +63,7 @@ function refine(speed: Speed, lo: number, hi: number, whole: number, depth: numb
   const right = gauss16(speed, mid, hi);
   const halves = left + right;
   // An overflowed speed (coordinates near the double limit) makes the test NaN: stop, do not bisect 2^20 times.
-  if (!Number.isFinite(halves) || Math.abs(halves - whole) <= BEZIER_LENGTH_REL_TOL * Math.abs(halves)) return halves;
+  if (!Number.isFinite(halves) || Math.abs(halves - whole) <= state.relTol * Math.abs(halves)) return halves;
   if (depth >= BEZIER_LENGTH_MAX_DEPTH) {
     state.depthCapped = true;
     return halves;
@@ -99,7 +100,7 @@ function getBezierSpeed(s: Quad | Cubic): Speed {
 export function getBezierLength(s: Quad | Cubic): LengthEstimate {
   const speed = getBezierSpeed(s);
   const breaks = [0, ...getBezierCriticalParameters(s), 1];
-  const state: QuadratureState = { depthCapped: false };
+  const state: QuadratureState = { relTol: BEZIER_LENGTH_REL_TOL, depthCapped: false };
   let value = 0;
   for (let i = 0; i + 1 < breaks.length; i++) {
     const lo = breaks[i]!, hi = breaks[i + 1]!;
@@ -109,17 +110,21 @@ export function getBezierLength(s: Quad | Cubic): LengthEstimate {
 }
 
 /**
- * Exact length of an arc P(θ) = C + U cos θ + V sin θ over its sweep.
+ * Length of an arc P(θ) = C + U cos θ + V sin θ over its sweep.
  * |P′(θ)|² = |U|² sin²θ − 2(U·V) sinθ cosθ + |V|² cos²θ = a²(1 − m sin²(θ + δ/2)) with
  * a² = (|U|² + |V|²)/2 + R, R = √(((|V|² − |U|²)/2)² + (U·V)²), δ = atan2(U·V, (|V|² − |U|²)/2),
  * m = 2R/a² and 1 − m = b²/a², b² = (U×V)²/a² (a, b the semi-axes) [derived: double-angle
- * identities; checked against REFERENCES §2.4 and §5.5]. Hence
- * L = a·|E(φ0 + sweep | m) − E(φ0 | m)|, φ0 = theta0 + δ/2 (DLMF §19.2.5 for E(φ | m)).
- * A circle (R = 0: U ⊥ V, |U| = |V|, exactly so for arcs built from one radius) gives r·|sweep|.
- * Error: φ0 is first reduced into [−π/2, π/2] (the integrand has period π), so the absolute error is
- * a few ulps of a·E(m)·(1 + |sweep|/π) — relative ~1e-15 unless the arc is a tiny fraction of a turn.
+ * identities; checked against REFERENCES §2.4 and §5.5].
+ * - Circle (R = 0: U ⊥ V, |U| = |V|, exactly so for arcs built from one radius): r·|sweep|, exact.
+ * - |sweep| ≥ π/2: L = a·|E(φ0 + sweep | m) − E(φ0 | m)|, φ0 = theta0 + δ/2 reduced into [−π/2, π/2]
+ *   (the integrand has period π), E by Carlson's R_F/R_D (DLMF §19.25.9). Absolute error a few ulps of
+ *   a·E(m)·(1 + |sweep|/π), which is ~1e-15 relative for an arc of a quarter turn or more.
+ * - |sweep| < π/2: that difference of two E values would lose relative accuracy as the sweep shrinks
+ *   (1e-8 at 1e-8 rad), so the speed is integrated directly by the adaptive 16-point Gauss–Legendre
+ *   scheme to ARC_LENGTH_QUADRATURE_REL_TOL relative (the integrand is analytic; thin ellipses get
+ *   more panels near the ends of the major axis).
  */
-export function getArcLength(a: Arc): number {
+export function getArcLengthEstimate(a: Arc): LengthEstimate {
   const uu = a.ux * a.ux + a.uy * a.uy;
   const vv = a.vx * a.vx + a.vy * a.vy;
   const uv = a.ux * a.vx + a.uy * a.vy;
@@ -127,15 +132,35 @@ export function getArcLength(a: Arc): number {
   const r = Math.hypot(half, uv);
   const a2 = (uu + vv) / 2 + r;
   const sweep = Math.abs(a.sweep);
-  if (a2 === 0) return 0;
-  if (r === 0) return Math.sqrt(a2) * sweep;
+  if (a2 === 0) return { value: 0, depthCapped: false };
+  if (r === 0) return { value: Math.sqrt(a2) * sweep, depthCapped: false };
+  if (sweep < Math.PI / 2) {
+    // Integrate over the offset u ∈ [0, |sweep|] from theta0, not over [theta0, theta0 + sweep]: the
+    // rounding of theta0 + sweep would change the width of a tiny interval (relatively 1e-8 at 1e-8 rad).
+    const direction = a.sweep < 0 ? -1 : 1;
+    const speed: Speed = (u) => {
+      const theta = a.theta0 + direction * u;
+      const c = Math.cos(theta), s = Math.sin(theta);
+      return Math.hypot(a.vx * c - a.ux * s, a.vy * c - a.uy * s);
+    };
+    const lo = 0;
+    const hi = sweep;
+    const state: QuadratureState = { relTol: ARC_LENGTH_QUADRATURE_REL_TOL, depthCapped: false };
+    const value = refine(speed, lo, hi, gauss16(speed, lo, hi), 0, state);
+    return { value, depthCapped: state.depthCapped };
+  }
   const cross = a.ux * a.vy - a.uy * a.vx;
   const m = (2 * r) / a2;
   const mc = (cross * cross) / (a2 * a2);
   let phi0 = a.theta0 + Math.atan2(uv, half) / 2;
   phi0 -= Math.round(phi0 / Math.PI) * Math.PI;
   const phi1 = phi0 + a.sweep;
-  return Math.sqrt(a2) * Math.abs(ellipticE(phi1, m, mc) - ellipticE(phi0, m, mc));
+  return { value: Math.sqrt(a2) * Math.abs(ellipticE(phi1, m, mc) - ellipticE(phi0, m, mc)), depthCapped: false };
+}
+
+/** Length of an arc (see getArcLengthEstimate). */
+export function getArcLength(a: Arc): number {
+  return getArcLengthEstimate(a).value;
 }
 
 /** Length of a segment with its trust flag (see LengthEstimate). */
@@ -144,14 +169,15 @@ export function getSegmentLengthEstimate(s: Segment): LengthEstimate {
     case 'line':
       return { value: Math.hypot(s.x1 - s.x0, s.y1 - s.y0), depthCapped: false };
     case 'arc':
-      return { value: getArcLength(s), depthCapped: false };
+      return getArcLengthEstimate(s);
     case 'quad':
     case 'cubic':
       return getBezierLength(s);
   }
 }
 
-/** Length of a segment: exact for lines and arcs, to BEZIER_LENGTH_REL_TOL for Béziers. */
+/** Length of a segment: exact for lines and circular arcs, see getArcLengthEstimate for elliptical
+ *  arcs, to BEZIER_LENGTH_REL_TOL for Béziers. */
 export function getSegmentLength(s: Segment): number {
   return getSegmentLengthEstimate(s).value;
 }

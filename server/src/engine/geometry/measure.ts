@@ -11,7 +11,7 @@ import type { Contour, ContourMetrics, Measured, YAxis } from '../types';
 export { CompensatedSum, getSegmentArea } from './area';
 export { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart } from './bounds';
 export type { Box } from './bounds';
-export { getArcLength, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
+export { getArcLength, getArcLengthEstimate, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
 export type { LengthEstimate } from './length';
 
 /** measureContour's figures plus what it knows about their accuracy. */

@@ -38,3 +38,11 @@ export const BEZIER_LENGTH_MAX_DEPTH = 20;
  *  precision unit roundoff), so the series error is below rounding.
  *  Source: B. C. Carlson, Numer. Algorithms 10 (1995) 13–26, §§2–3 (error bound in terms of r). */
 export const CARLSON_REL_TOL = 2 ** -53;
+
+/** Target accuracy of the length of an elliptical arc shorter than a quarter turn, integrated by the
+ *  same adaptive Gauss–Legendre scheme as Béziers (length.ts, getArcLengthEstimate).
+ *  Quantity: length · Unit: none · Relative. Why this size: longer arcs are measured through elliptic
+ *  integrals to ~1e-15; 1e-13 keeps short arcs nearly as exact at a few panels (the integrand is
+ *  analytic) while staying well above the rounding noise of the 16-point sums (~1e-16 per panel).
+ *  Source: common practice, no source. */
+export const ARC_LENGTH_QUADRATURE_REL_TOL = 1e-13;

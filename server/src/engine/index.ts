@@ -4,6 +4,7 @@
  */
 import { checks, getCheck } from './checks/index';
 import { fillTemplate } from './format';
+import { readDxf } from './formats/dxf/readDxf';
 import { readSvg } from './formats/svg/readSvg';
 import { measureContour } from './geometry/measure';
 import { DEFAULT_NEAR_CLOSED_TOLERANCE_MM } from './geometry/tolerances';
@@ -39,6 +40,7 @@ export class AnalysisCancelled extends Error {
 export function getFormatForPath(path: string): FileFormat | undefined {
   const lower = path.toLowerCase();
   if (lower.endsWith('.svg')) return 'svg';
+  if (lower.endsWith('.dxf')) return 'dxf';
   return undefined;
 }
 
@@ -47,7 +49,7 @@ function read(text: string, format: FileFormat, options: AnalysisOptions): ReadR
     case 'svg':
       return readSvg(text, { assumedUnit: options.assumedUnit });
     case 'dxf':
-      throw new Error('DXF files are not read yet');
+      return readDxf(text, { assumedUnit: options.assumedUnit });
   }
 }
 

@@ -1,7 +1,11 @@
 /** The registry of checks: id → definition. A new check is added here and documented in the README. */
+import branching from './branching';
 import type { CheckDefinition } from './defineCheck';
+import duplicateEntity from './duplicate-entity';
 import nearClosed from './near-closed';
+import notAnalysed from './not-analysed';
 import openContour from './open-contour';
+import outOfPlane from './out-of-plane';
 import parseError from './parse-error';
 import unitsAssumed from './units-assumed';
 import zeroLengthSegment from './zero-length-segment';
@@ -9,7 +13,8 @@ import zeroLengthSegment from './zero-length-segment';
 export type { CheckContext, CheckDefinition } from './defineCheck';
 
 /** Every check, in the order they run. */
-export const checks: readonly CheckDefinition[] = [parseError, unitsAssumed, openContour, nearClosed, zeroLengthSegment];
+export const checks: readonly CheckDefinition[] = [parseError, unitsAssumed, openContour, nearClosed, zeroLengthSegment,
+  notAnalysed, outOfPlane, branching, duplicateEntity];
 
 const byId = new Map(checks.map((c) => [c.id, c]));
 

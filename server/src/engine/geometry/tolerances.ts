@@ -46,3 +46,23 @@ export const CARLSON_REL_TOL = 2 ** -53;
  *  analytic) while staying well above the rounding noise of the 16-point sums (~1e-16 per panel).
  *  Source: common practice, no source. */
 export const ARC_LENGTH_QUADRATURE_REL_TOL = 1e-13;
+
+/** Largest distance between two entity ends that are joined when loose DXF entities are chained
+ *  into contours; ends farther apart stay open (and the gap is then reported by `near-closed` or
+ *  `open-contour`). Quantity: length · Unit: mm · Absolute. Why this size: coordinates written with
+ *  3 decimals in mm or 4 decimals in inches are off by up to 1.3 µm each, so two ends meant to meet
+ *  can be ~3 µm apart; 5 µm joins them and stays below the resolution of cutting machines (~10 µm).
+ *  Source: common practice, no source. */
+export const CHAIN_TOLERANCE_MM = 0.005;
+
+/** Largest deviation of the cubic Béziers that replace a spline piece with no exact form in our
+ *  segment kinds (degree > 3, or rational and not a conic arc), measured as the parametric distance
+ *  at 15 interior points of every piece. Quantity: length · Unit: mm · Absolute. Far below machine
+ *  resolution (~10 µm) and far above rounding noise. Source: common practice, no source. */
+export const SPLINE_FIT_TOLERANCE_MM = 1e-4;
+
+/** An extrusion direction (normalised) counts as parallel to ±Z when |Nx| and |Ny| are below this;
+ *  otherwise the entity leaves the drawing plane. Quantity: direction cosine · Unitless · Absolute.
+ *  Far above rounding noise of a unit vector written with ~15 digits, far below the 1/64 threshold of
+ *  the arbitrary axis algorithm (REFERENCES.md §6.5). Source: common practice, no source. */
+export const PLANE_NORMAL_TOLERANCE = 1e-9;

@@ -1,0 +1,492 @@
+/**
+ * Turns the group stream of an ASCII DXF file into sections, header variables, layers, blocks and
+ * entity records in file units, keeping the source positions needed for findings and quick fixes.
+ * Group codes per entity: REFERENCES.md §6.4 (DXF Reference, ENTITIES section pages).
+ *
+ * Each entity's span runs from its `0` group's code line to the start of the next `0` group; a
+ * POLYLINE's span runs through its VERTEX entities to the end of its SEQEND.
+ */
+import type { RawFinding, SourceSpan } from '../../types';
+import { GroupScanner } from './groups';
+
+/** Value spans of the x and y groups of one point (for edits that move the point). */
+export interface PointRef {
+  readonly xs: number; readonly xe: number;
+  readonly ys: number; readonly ye: number;
+}
+
+export interface EntityBase {
+  /** Entity type as written (`LINE`, `LWPOLYLINE`, …). */
+  readonly type: string;
+  readonly span: SourceSpan;
+  /** 0-based line of the entity's `0` group. */
+  readonly line: number;
+  readonly layer: string;
+  readonly handle?: string;
+  /** Group 67 = 1: the entity belongs to a paper-space layout. */
+  readonly paperSpace: boolean;
+  /** Extrusion direction (210/220/230), default (0, 0, 1). */
+  readonly nx: number; readonly ny: number; readonly nz: number;
+  /** Hash of the entity's groups except handles and owners, for exact-duplicate detection. */
+  readonly hash: number;
+}
+
+export interface LwVertex {
+  readonly x: number; readonly y: number; readonly bulge: number;
+  readonly ref: PointRef;
+  /** From the vertex's 10 code line to the end of its last vertex group (40/41/42/91). */
+  readonly span: SourceSpan;
+}
+
+export interface PolyVertex {
+  readonly x: number; readonly y: number; readonly z: number; readonly bulge: number; readonly flags: number;
+  readonly ref: PointRef;
+  /** The VERTEX entity. */
+  readonly span: SourceSpan;
+}
+
+export type DxfEntity = EntityBase & (
+  | { readonly kind: 'line'; readonly x0: number; readonly y0: number; readonly z0: number; readonly x1: number; readonly y1: number; readonly z1: number; readonly ref0: PointRef; readonly ref1: PointRef }
+  | { readonly kind: 'circle'; readonly cx: number; readonly cy: number; readonly cz: number; readonly r: number }
+  | { readonly kind: 'arc'; readonly cx: number; readonly cy: number; readonly cz: number; readonly r: number; readonly startDeg: number; readonly endDeg: number }
+  | { readonly kind: 'ellipse'; readonly cx: number; readonly cy: number; readonly cz: number; readonly mx: number; readonly my: number; readonly mz: number; readonly ratio: number; readonly t0: number; readonly t1: number }
+  | { readonly kind: 'lwpolyline'; readonly flags: number; readonly flagsSpan?: SourceSpan; readonly countSpan?: SourceSpan; readonly insertFlagsAt: number; readonly elevation: number; readonly vertices: readonly LwVertex[] }
+  | { readonly kind: 'polyline'; readonly flags: number; readonly flagsSpan?: SourceSpan; readonly insertFlagsAt: number; readonly elevation: number; readonly vertices: readonly PolyVertex[] }
+  | { readonly kind: 'spline'; readonly flags: number; readonly degree: number; readonly knots: readonly number[]; readonly weights: readonly number[]; readonly ctrl: readonly number[]; readonly fitCount: number; readonly firstRef?: PointRef; readonly lastRef?: PointRef }
+  | { readonly kind: 'insert'; readonly name: string; readonly x: number; readonly y: number; readonly z: number; readonly sx: number; readonly sy: number; readonly sz: number; readonly rotationDeg: number; readonly columns: number; readonly rows: number; readonly columnSpacing: number; readonly rowSpacing: number }
+  | { readonly kind: 'other' }
+);
+
+export interface LayerInfo {
+  readonly name: string;
+  readonly flags: number;
+  readonly colour: number;
+  /** The LAYER table entry. */
+  readonly span: SourceSpan;
+}
+
+export interface BlockDef {
+  readonly name: string;
+  readonly baseX: number; readonly baseY: number;
+  readonly span: SourceSpan;
+  readonly entities: readonly DxfEntity[];
+}
+
+export interface DxfDocument {
+  /** $INSUNITS value and the span of its header variable, when present. */
+  readonly insunits?: { readonly value: number; readonly span: SourceSpan };
+  /** The HEADER section's `0 SECTION` line pair, when present. */
+  readonly headerSpan?: SourceSpan;
+  readonly layers: ReadonlyMap<string, LayerInfo>;
+  readonly blocks: ReadonlyMap<string, BlockDef>;
+  /** Entities of the ENTITIES section, in file order. */
+  readonly entities: readonly DxfEntity[];
+  readonly problems: readonly RawFinding[];
+  /** Line end used by the file. */
+  readonly eol: string;
+}
+
+/** Group codes left out of the duplicate hash: handle, owner and reactor/dictionary references. */
+function isIdentityCode(code: number): boolean {
+  return code === 5 || code === 330 || code === 360 || code === 102;
+}
+
+/** The groups of one entity, as parallel arrays (reused between entities). */
+class GroupBuffer {
+  codes: number[] = [];
+  nums: number[] = [];
+  vs: number[] = [];
+  ve: number[] = [];
+  cs: number[] = [];
+  /** End of each pair (after the value line's line end). */
+  pe: number[] = [];
+  length = 0;
+
+  reset(): void {
+    this.length = 0;
+  }
+
+  push(sc: GroupScanner): void {
+    const i = this.length++;
+    this.codes[i] = sc.code;
+    this.nums[i] = sc.number;
+    this.vs[i] = sc.valueStart;
+    this.ve[i] = sc.valueEnd;
+    this.cs[i] = sc.codeStart;
+    this.pe[i] = sc.pairEnd;
+  }
+}
+
+/** 32-bit FNV-1a over a string range, continuing from `h`. */
+function hashRange(h: number, text: string, start: number, end: number): number {
+  for (let i = start; i < end; i++) {
+    h ^= text.charCodeAt(i);
+    h = Math.imul(h, 0x01000193);
+  }
+  return h >>> 0;
+}
+
+interface Started {
+  type: string;
+  start: number;
+  line: number;
+}
+
+class DocumentBuilder {
+  readonly text: string;
+  readonly sc: GroupScanner;
+  readonly buf = new GroupBuffer();
+  readonly layers = new Map<string, LayerInfo>();
+  readonly blocks = new Map<string, BlockDef>();
+  readonly entities: DxfEntity[] = [];
+  insunits?: { value: number; span: SourceSpan };
+  headerSpan?: SourceSpan;
+  /** Where entities go: the ENTITIES list or the block being defined. */
+  private target: DxfEntity[] | null = null;
+  private block: { name: string; baseX: number; baseY: number; start: number; entities: DxfEntity[] } | null = null;
+  private polyline: { header: DxfEntity & { kind: 'other' }; flags: number; flagsSpan?: SourceSpan; insertFlagsAt: number; elevation: number; vertices: PolyVertex[]; hash: number } | null = null;
+
+  constructor(text: string) {
+    this.text = text;
+    this.sc = new GroupScanner(text);
+  }
+
+  report(span: SourceSpan, detail: string): void {
+    this.sc.report(span, detail);
+  }
+
+  run(): void {
+    const sc = this.sc;
+    let section: string | null = null;
+    let current: Started | null = null;
+    let headerVar: { name: string; start: number } | null = null;
+    let layer: { start: number; name: string; flags: number; colour: number } | null = null;
+    const finishLayer = (end: number) => {
+      if (layer && layer.name !== '') this.layers.set(layer.name, { name: layer.name, flags: layer.flags, colour: layer.colour, span: { start: layer.start, end } });
+      layer = null;
+    };
+    let expectSectionName = false;
+    while (sc.next()) {
+      if (sc.code === 0) {
+        if (current) this.finishEntity(current, sc.codeStart);
+        current = null;
+        finishLayer(sc.codeStart);
+        const name = sc.name;
+        if (name === 'SECTION') {
+          expectSectionName = true;
+          section = null;
+          this.target = null;
+          if (this.polyline) this.flushPolyline(sc.codeStart, true);
+          continue;
+        }
+        if (name === 'ENDSEC') {
+          if (this.polyline) this.flushPolyline(sc.codeStart, true);
+          section = null;
+          this.target = null;
+          continue;
+        }
+        if (name === 'EOF') break;
+        if (section === 'ENTITIES' || section === 'BLOCKS') {
+          current = { type: name, start: sc.codeStart, line: sc.codeLine };
+          this.buf.reset();
+        } else if (section === 'TABLES' && name === 'LAYER') {
+          layer = { start: sc.codeStart, name: '', flags: 0, colour: 7 };
+        }
+        continue;
+      }
+      if (expectSectionName) {
+        expectSectionName = false;
+        if (sc.code === 2) {
+          section = sc.name;
+          if (section === 'ENTITIES') this.target = this.entities;
+          if (section === 'HEADER') this.headerSpan = { start: sc.codeStart, end: sc.valueEnd };
+          continue;
+        }
+      }
+      if (current) {
+        this.buf.push(sc);
+      } else if (layer) {
+        if (sc.code === 2) layer.name = sc.name;
+        else if (sc.code === 70 && Number.isFinite(sc.number)) layer.flags = sc.number;
+        else if (sc.code === 62 && Number.isFinite(sc.number)) layer.colour = sc.number;
+      } else if (section === 'HEADER') {
+        if (sc.code === 9) headerVar = { name: sc.name, start: sc.codeStart };
+        else if (headerVar?.name === '$INSUNITS' && sc.code === 70) {
+          this.insunits = { value: sc.number, span: { start: headerVar.start, end: sc.valueEnd } };
+        }
+      }
+    }
+    const end = this.text.length;
+    if (current) this.finishEntity(current, end);
+    finishLayer(end);
+    if (this.polyline) this.flushPolyline(end, true);
+  }
+
+  private num(i: number, fallback: number): number {
+    const v = this.buf.nums[i];
+    return v === undefined || Number.isNaN(v) ? fallback : v;
+  }
+
+  private str(i: number): string {
+    return this.text.slice(this.buf.vs[i], this.buf.ve[i]).trim();
+  }
+
+  private finishEntity(started: Started, end: number): void {
+    const { type, start, line } = started;
+    const span = { start, end };
+    const b = this.buf;
+    const text = this.text;
+    let layer = '0';
+    let handle: string | undefined;
+    let paperSpace = false;
+    let nx = 0, ny = 0, nz = 1;
+    let hash = hashRange(0x811c9dc5, type, 0, type.length);
+    for (let i = 0; i < b.length; i++) {
+      const c = b.codes[i];
+      if (c === 8) layer = this.str(i);
+      else if (c === 5) handle = this.str(i);
+      else if (c === 67) paperSpace = b.nums[i] === 1;
+      else if (c === 210) nx = this.num(i, 0);
+      else if (c === 220) ny = this.num(i, 0);
+      else if (c === 230) nz = this.num(i, 1);
+      if (!isIdentityCode(c)) {
+        hash = Math.imul(hash ^ c, 0x01000193) >>> 0;
+        hash = hashRange(hash, text, b.vs[i], b.ve[i]);
+      }
+    }
+    const base = { type, span, line, layer, handle, paperSpace, nx, ny, nz, hash };
+
+    // Block definitions and the POLYLINE … VERTEX … SEQEND sequence.
+    if (type === 'BLOCK') {
+      if (this.polyline) this.flushPolyline(start, true);
+      let name = '';
+      let bx = 0, by = 0;
+      for (let i = 0; i < b.length; i++) {
+        if (b.codes[i] === 2) name = this.str(i);
+        else if (b.codes[i] === 10) bx = this.num(i, 0);
+        else if (b.codes[i] === 20) by = this.num(i, 0);
+      }
+      this.block = { name, baseX: bx, baseY: by, start, entities: [] };
+      this.target = this.block.entities;
+      return;
+    }
+    if (type === 'ENDBLK') {
+      if (this.polyline) this.flushPolyline(start, true);
+      if (this.block) {
+        const bl = this.block;
+        this.blocks.set(bl.name, { name: bl.name, baseX: bl.baseX, baseY: bl.baseY, span: { start: bl.start, end }, entities: bl.entities });
+      }
+      this.block = null;
+      this.target = null;
+      return;
+    }
+    if (type === 'VERTEX' && this.polyline) {
+      const p = this.polyline;
+      let x = 0, y = 0, z = 0, bulge = 0, flags = 0;
+      let xs = start, xe = start, ys = start, ye = start;
+      for (let i = 0; i < b.length; i++) {
+        const c = b.codes[i];
+        if (c === 10) { x = this.num(i, Number.NaN); xs = b.vs[i]; xe = b.ve[i]; }
+        else if (c === 20) { y = this.num(i, Number.NaN); ys = b.vs[i]; ye = b.ve[i]; }
+        else if (c === 30) z = this.num(i, 0);
+        else if (c === 42) bulge = this.num(i, 0);
+        else if (c === 70) flags = this.num(i, 0);
+      }
+      p.vertices.push({ x, y, z, bulge, flags, ref: { xs, xe, ys, ye }, span });
+      p.hash = Math.imul(p.hash ^ hash, 0x01000193) >>> 0;
+      return;
+    }
+    if (type === 'SEQEND' && this.polyline) {
+      this.flushPolyline(end, false);
+      return;
+    }
+    if (this.polyline) this.flushPolyline(start, true);
+    if (!this.target) return;
+
+    const entity = this.buildEntity(base, type);
+    if (entity === 'polyline') return;
+    this.target.push(entity);
+  }
+
+  /** Ends the open POLYLINE at `end`; `missingSeqend` reports a sequence cut short. */
+  private flushPolyline(end: number, missingSeqend: boolean): void {
+    const p = this.polyline;
+    if (!p) return;
+    this.polyline = null;
+    if (missingSeqend) this.report({ start: p.header.span.start, end: p.header.span.end }, 'POLYLINE has no SEQEND after its vertices');
+    const span = { start: p.header.span.start, end };
+    this.target?.push({
+      ...p.header, kind: 'polyline', span, hash: p.hash,
+      flags: p.flags, flagsSpan: p.flagsSpan, insertFlagsAt: p.insertFlagsAt, elevation: p.elevation, vertices: p.vertices,
+    });
+  }
+
+  private buildEntity(base: Omit<EntityBase, never>, type: string): DxfEntity | 'polyline' {
+    const b = this.buf;
+    const n = b.length;
+    switch (type) {
+      case 'LINE': {
+        let x0 = 0, y0 = 0, z0 = 0, x1 = 0, y1 = 0, z1 = 0;
+        const s = base.span.start;
+        const r0 = { xs: s, xe: s, ys: s, ye: s };
+        const r1 = { xs: s, xe: s, ys: s, ye: s };
+        for (let i = 0; i < n; i++) {
+          switch (b.codes[i]) {
+            case 10: x0 = this.num(i, Number.NaN); r0.xs = b.vs[i]; r0.xe = b.ve[i]; break;
+            case 20: y0 = this.num(i, Number.NaN); r0.ys = b.vs[i]; r0.ye = b.ve[i]; break;
+            case 30: z0 = this.num(i, 0); break;
+            case 11: x1 = this.num(i, Number.NaN); r1.xs = b.vs[i]; r1.xe = b.ve[i]; break;
+            case 21: y1 = this.num(i, Number.NaN); r1.ys = b.vs[i]; r1.ye = b.ve[i]; break;
+            case 31: z1 = this.num(i, 0); break;
+          }
+        }
+        return { ...base, kind: 'line', x0, y0, z0, x1, y1, z1, ref0: r0, ref1: r1 };
+      }
+      case 'CIRCLE':
+      case 'ARC': {
+        let cx = 0, cy = 0, cz = 0, r = 0, a0 = 0, a1 = 360;
+        for (let i = 0; i < n; i++) {
+          switch (b.codes[i]) {
+            case 10: cx = this.num(i, Number.NaN); break;
+            case 20: cy = this.num(i, Number.NaN); break;
+            case 30: cz = this.num(i, 0); break;
+            case 40: r = this.num(i, Number.NaN); break;
+            case 50: a0 = this.num(i, Number.NaN); break;
+            case 51: a1 = this.num(i, Number.NaN); break;
+          }
+        }
+        return type === 'CIRCLE'
+          ? { ...base, kind: 'circle', cx, cy, cz, r }
+          : { ...base, kind: 'arc', cx, cy, cz, r, startDeg: a0, endDeg: a1 };
+      }
+      case 'ELLIPSE': {
+        let cx = 0, cy = 0, cz = 0, mx = 0, my = 0, mz = 0, ratio = 1, t0 = 0, t1 = 2 * Math.PI;
+        for (let i = 0; i < n; i++) {
+          switch (b.codes[i]) {
+            case 10: cx = this.num(i, Number.NaN); break;
+            case 20: cy = this.num(i, Number.NaN); break;
+            case 30: cz = this.num(i, 0); break;
+            case 11: mx = this.num(i, Number.NaN); break;
+            case 21: my = this.num(i, Number.NaN); break;
+            case 31: mz = this.num(i, 0); break;
+            case 40: ratio = this.num(i, Number.NaN); break;
+            case 41: t0 = this.num(i, Number.NaN); break;
+            case 42: t1 = this.num(i, Number.NaN); break;
+          }
+        }
+        return { ...base, kind: 'ellipse', cx, cy, cz, mx, my, mz, ratio, t0, t1 };
+      }
+      case 'LWPOLYLINE': {
+        let flags = 0, elevation = 0;
+        let flagsSpan: SourceSpan | undefined;
+        let countSpan: SourceSpan | undefined;
+        let insertFlagsAt = -1;
+        const vertices: LwVertex[] = [];
+        let v: { x: number; y: number; bulge: number; ref: { xs: number; xe: number; ys: number; ye: number }; start: number; end: number } | null = null;
+        const pushVertex = () => {
+          if (v) vertices.push({ x: v.x, y: v.y, bulge: v.bulge, ref: v.ref, span: { start: v.start, end: v.end } });
+          v = null;
+        };
+        for (let i = 0; i < n; i++) {
+          const c = b.codes[i];
+          if (c === 10) {
+            pushVertex();
+            if (insertFlagsAt < 0) insertFlagsAt = b.cs[i];
+            v = { x: this.num(i, Number.NaN), y: Number.NaN, bulge: 0, ref: { xs: b.vs[i], xe: b.ve[i], ys: b.vs[i], ye: b.ve[i] }, start: b.cs[i], end: b.pe[i] };
+          } else if (v && (c === 20 || c === 40 || c === 41 || c === 42 || c === 91)) {
+            if (c === 20) { v.y = this.num(i, Number.NaN); v.ref.ys = b.vs[i]; v.ref.ye = b.ve[i]; }
+            else if (c === 42) v.bulge = this.num(i, 0);
+            v.end = b.pe[i];
+          } else {
+            pushVertex();
+            if (c === 70) { flags = this.num(i, 0); flagsSpan = { start: b.vs[i], end: b.ve[i] }; }
+            else if (c === 90) countSpan = { start: b.vs[i], end: b.ve[i] };
+            else if (c === 38) elevation = this.num(i, 0);
+          }
+        }
+        pushVertex();
+        if (insertFlagsAt < 0) insertFlagsAt = base.span.end;
+        return { ...base, kind: 'lwpolyline', flags, flagsSpan, countSpan, insertFlagsAt, elevation, vertices };
+      }
+      case 'POLYLINE': {
+        let flags = 0, elevation = 0;
+        let flagsSpan: SourceSpan | undefined;
+        for (let i = 0; i < n; i++) {
+          if (b.codes[i] === 70) { flags = this.num(i, 0); flagsSpan = { start: b.vs[i], end: b.ve[i] }; }
+          else if (b.codes[i] === 30) elevation = this.num(i, 0);
+        }
+        this.polyline = {
+          header: { ...base, kind: 'other' }, flags, flagsSpan, insertFlagsAt: base.span.end, elevation, vertices: [], hash: base.hash,
+        };
+        return 'polyline';
+      }
+      case 'SPLINE': {
+        let flags = 0, degree = 3, fitCount = 0;
+        const knots: number[] = [];
+        const weights: number[] = [];
+        const ctrl: number[] = [];
+        let firstRef: PointRef | undefined;
+        let lastRef: { xs: number; xe: number; ys: number; ye: number } | undefined;
+        for (let i = 0; i < n; i++) {
+          switch (b.codes[i]) {
+            case 70: flags = this.num(i, 0); break;
+            case 71: degree = this.num(i, Number.NaN); break;
+            case 74: fitCount = this.num(i, 0); break;
+            case 40: knots.push(this.num(i, Number.NaN)); break;
+            case 41: weights.push(this.num(i, Number.NaN)); break;
+            case 10:
+              ctrl.push(this.num(i, Number.NaN), 0, 0);
+              lastRef = { xs: b.vs[i], xe: b.ve[i], ys: b.vs[i], ye: b.ve[i] };
+              firstRef ??= lastRef;
+              break;
+            case 20:
+              if (ctrl.length > 0) ctrl[ctrl.length - 2] = this.num(i, Number.NaN);
+              if (lastRef) { lastRef.ys = b.vs[i]; lastRef.ye = b.ve[i]; }
+              break;
+            case 30:
+              if (ctrl.length > 0) ctrl[ctrl.length - 1] = this.num(i, 0);
+              break;
+          }
+        }
+        return { ...base, kind: 'spline', flags, degree, knots, weights, ctrl, fitCount, firstRef, lastRef };
+      }
+      case 'INSERT': {
+        let name = '', x = 0, y = 0, z = 0, sx = 1, sy = 1, sz = 1, rot = 0, columns = 1, rows = 1, colSp = 0, rowSp = 0;
+        for (let i = 0; i < n; i++) {
+          switch (b.codes[i]) {
+            case 2: name = this.str(i); break;
+            case 10: x = this.num(i, Number.NaN); break;
+            case 20: y = this.num(i, Number.NaN); break;
+            case 30: z = this.num(i, 0); break;
+            case 41: sx = this.num(i, Number.NaN); break;
+            case 42: sy = this.num(i, Number.NaN); break;
+            case 43: sz = this.num(i, Number.NaN); break;
+            case 50: rot = this.num(i, Number.NaN); break;
+            case 70: columns = this.num(i, 1); break;
+            case 71: rows = this.num(i, 1); break;
+            case 44: colSp = this.num(i, 0); break;
+            case 45: rowSp = this.num(i, 0); break;
+          }
+        }
+        return { ...base, kind: 'insert', name, x, y, z, sx, sy, sz, rotationDeg: rot, columns, rows, columnSpacing: colSp, rowSpacing: rowSp };
+      }
+      default:
+        return { ...base, kind: 'other' };
+    }
+  }
+}
+
+/** Reads the sections, header, layers, blocks and entities of an ASCII DXF text. Never throws. */
+export function parseDxfDocument(text: string): DxfDocument {
+  const d = new DocumentBuilder(text);
+  d.run();
+  return {
+    insunits: d.insunits,
+    headerSpan: d.headerSpan,
+    layers: d.layers,
+    blocks: d.blocks,
+    entities: d.entities,
+    problems: d.sc.problems,
+    eol: d.sc.eol,
+  };
+}

@@ -1,0 +1,363 @@
+/**
+ * DXF entities to pieces of outline in WCS millimetres: each piece is the segments of one entity
+ * (or of one entity of one block instance), with the source positions its findings and fixes need.
+ * Formulas: REFERENCES.md §6.4 (entities, INSERT mapping), §6.5 (OCS), §6.7 (bulges).
+ */
+import { SPLINE_FIT_TOLERANCE_MM } from '../../geometry/tolerances';
+import type { Arc, Segment, SourceSpan } from '../../types';
+import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointRef, PolyVertex } from './entities';
+import { getSplineSegments } from './spline';
+import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine, mapSegment } from './transform';
+
+/** An end of a piece that a fix may move: the value lines of its coordinates, in file units. */
+export interface EditablePoint {
+  readonly ref: PointRef;
+}
+
+/** What a single-polyline contour needs for its close fix. */
+export interface PolylineFixInfo {
+  readonly kind: 'lwpolyline' | 'polyline';
+  readonly flags: number;
+  readonly flagsSpan?: SourceSpan;
+  readonly countSpan?: SourceSpan;
+  readonly insertFlagsAt: number;
+  readonly vertexCount: number;
+  /** The last vertex's text (LWPOLYLINE: its groups; POLYLINE: its VERTEX entity). */
+  readonly lastVertexSpan: SourceSpan;
+}
+
+export interface Piece {
+  /** Segments in the entity's own direction, WCS millimetres. */
+  readonly segments: Segment[];
+  /** Closed by the file (circle, full ellipse, closed polyline or spline). */
+  readonly closed: boolean;
+  /** Position of the top-level entity in the ENTITIES section (contour order). */
+  readonly order: number;
+  /** The top-level entity (or INSERT) the piece comes from. */
+  readonly span: SourceSpan;
+  readonly element: string;
+  readonly handle?: string;
+  readonly layer: string;
+  readonly startSpan: SourceSpan;
+  readonly endSpan: SourceSpan;
+  readonly startEdit?: EditablePoint;
+  readonly endEdit?: EditablePoint;
+  readonly polyline?: PolylineFixInfo;
+  /** An LWPOLYLINE or POLYLINE without its closed flag: its ends meeting is still an open contour. */
+  readonly unflaggedPolyline: boolean;
+}
+
+/** Facts met while building pieces, reported by the reader. */
+export interface PieceNotes {
+  /** Entities not analysed, by type label: the spans (the INSERT's for block content). */
+  readonly notAnalysed: Map<string, SourceSpan[]>;
+  /** Entities skipped because their layer is frozen or off: layer name → count. */
+  readonly hiddenLayers: Map<string, number>;
+  /** Paper-space entities skipped. */
+  readonly paperSpace: SourceSpan[];
+  /** Out-of-plane entities: span, type, detail. */
+  readonly outOfPlane: { span: SourceSpan; entity: string; detail: string }[];
+  /** Malformed entity data: span, detail (parse-error / dxf). */
+  readonly malformed: { span: SourceSpan; detail: string }[];
+}
+
+/** Nesting limit of inserts (a block inserting itself is reported before this is reached). */
+const MAX_INSERT_DEPTH = 32;
+/** Largest number of block instances expanded for one file: guards row × column arrays of huge counts. */
+const MAX_INSTANCES = 100_000;
+
+export function isLayerHidden(layer: LayerInfo | undefined): boolean {
+  return !!layer && ((layer.flags & 1) !== 0 || layer.colour < 0);
+}
+
+function getFullArc(cx: number, cy: number, ux: number, uy: number, vx: number, vy: number, span: SourceSpan): Arc {
+  return { kind: 'arc', x0: cx + ux, y0: cy + uy, x1: cx + ux, y1: cy + uy, cx, cy, ux, uy, vx, vy, theta0: 0, sweep: 2 * Math.PI, span };
+}
+
+/**
+ * Segment from (x0, y0) to (x1, y1) with bulge b (REFERENCES.md §6.7): included angle 4·atan b
+ * (signed, b > 0 counter-clockwise), radius c(1 + b²)/(4|b|); the centre lies c(1 − b²)/(4b) to the
+ * left of the chord's midpoint (the same point as §6.7's P1 + r_s·(cos α, sin α)).
+ */
+export function getBulgeSegment(x0: number, y0: number, x1: number, y1: number, bulge: number, span: SourceSpan): Segment {
+  const dx = x1 - x0, dy = y1 - y0;
+  const c = Math.hypot(dx, dy);
+  if (bulge === 0 || c === 0) return { kind: 'line', x0, y0, x1, y1, span };
+  const h = (1 - bulge * bulge) / (4 * bulge); // offset per unit chord length
+  const cx = (x0 + x1) / 2 - dy * h;
+  const cy = (y0 + y1) / 2 + dx * h;
+  const r = (c * (1 + bulge * bulge)) / (4 * Math.abs(bulge));
+  return { kind: 'arc', x0, y0, x1, y1, cx, cy, ux: r, uy: 0, vx: 0, vy: r, theta0: Math.atan2(y0 - cy, x0 - cx), sweep: 4 * Math.atan(bulge), span };
+}
+
+interface Frame {
+  /** Entity coordinates (after OCS) → WCS mm. */
+  readonly m: Affine;
+  /** The top-level span (entity or INSERT) and order. */
+  readonly top: { readonly span: SourceSpan; readonly order: number; readonly type: string; readonly handle?: string };
+  /** True for top-level entities whose file coordinates map to mm by the unit factor only. */
+  readonly editable: boolean;
+  readonly depth: number;
+  readonly blocks: readonly string[];
+}
+
+export class PieceBuilder {
+  readonly pieces: Piece[] = [];
+  readonly notes: PieceNotes = { notAnalysed: new Map(), hiddenLayers: new Map(), paperSpace: [], outOfPlane: [], malformed: [] };
+  private instances = 0;
+  private instanceCapReported = false;
+
+  constructor(
+    private readonly blocks: ReadonlyMap<string, BlockDef>,
+    private readonly layers: ReadonlyMap<string, LayerInfo>,
+    private readonly mmPerUnit: number,
+  ) {}
+
+  /** Builds the pieces of one top-level entity of the ENTITIES section. */
+  addTopLevel(e: DxfEntity, order: number): void {
+    if (e.paperSpace) {
+      this.notes.paperSpace.push(e.span);
+      return;
+    }
+    if (this.skipHidden(e.layer)) return;
+    this.addEntity(e, e.layer, {
+      m: scaling(this.mmPerUnit, this.mmPerUnit),
+      top: { span: e.span, order, type: e.type, handle: e.handle },
+      editable: true,
+      depth: 0,
+      blocks: [],
+    });
+  }
+
+  private skipHidden(layer: string): boolean {
+    if (!isLayerHidden(this.layers.get(layer))) return false;
+    this.notes.hiddenLayers.set(layer, (this.notes.hiddenLayers.get(layer) ?? 0) + 1);
+    return true;
+  }
+
+  private noteOther(label: string, f: Frame, e: DxfEntity): void {
+    const span = f.depth === 0 ? e.span : f.top.span;
+    let list = this.notes.notAnalysed.get(label);
+    if (!list) this.notes.notAnalysed.set(label, (list = []));
+    list.push(span);
+  }
+
+  private malformed(f: Frame, e: DxfEntity, detail: string): void {
+    this.notes.malformed.push({ span: f.depth === 0 ? e.span : f.top.span, detail: f.depth === 0 ? detail : `${detail} (in block ${f.blocks[f.blocks.length - 1]})` });
+  }
+
+  private outOfPlane(f: Frame, e: DxfEntity, detail: string): void {
+    this.notes.outOfPlane.push({ span: f.depth === 0 ? e.span : f.top.span, entity: e.type, detail });
+  }
+
+  /** The OCS map of the entity composed into the frame, or null (reported) when it is out of plane. */
+  private getOcsFrame(f: Frame, e: DxfEntity): Frame | null {
+    const ocs = getOcsMap(e.nx, e.ny, e.nz);
+    if (!ocs) {
+      this.outOfPlane(f, e, `extrusion direction (${e.nx}, ${e.ny}, ${e.nz}) is not perpendicular to the drawing plane`);
+      return null;
+    }
+    if (ocs === IDENTITY) return f;
+    return { ...f, m: compose(f.m, ocs), editable: false };
+  }
+
+  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<Piece> = {}): void {
+    const inBlock = f.depth > 0;
+    const spanOf = (s: SourceSpan) => (inBlock ? f.top.span : s);
+    const mapped = segments.map((s) => mapSegment(f.m, s, spanOf(s.span)));
+    this.pieces.push({
+      segments: mapped,
+      closed,
+      order: f.top.order,
+      span: f.top.span,
+      element: inBlock ? f.top.type : e.type,
+      handle: f.top.handle,
+      layer,
+      startSpan: inBlock ? f.top.span : (extra.startSpan ?? e.span),
+      endSpan: inBlock ? f.top.span : (extra.endSpan ?? e.span),
+      startEdit: f.editable ? extra.startEdit : undefined,
+      endEdit: f.editable ? extra.endEdit : undefined,
+      polyline: f.editable ? extra.polyline : undefined,
+      unflaggedPolyline: extra.unflaggedPolyline ?? false,
+    });
+  }
+
+  private addEntity(e: DxfEntity, layer: string, f: Frame): void {
+    switch (e.kind) {
+      case 'line': {
+        if (![e.x0, e.y0, e.x1, e.y1].every(Number.isFinite)) return this.malformed(f, e, 'LINE has a coordinate that is not a number');
+        if (e.z0 !== e.z1) return this.outOfPlane(f, e, `its ends lie at different heights (z ${e.z0} and ${e.z1})`);
+        // LINE points are WCS (§6.4): the extrusion does not move them.
+        return this.push(f, e, layer, [{ kind: 'line', x0: e.x0, y0: e.y0, x1: e.x1, y1: e.y1, span: e.span }], false,
+          { startEdit: { ref: e.ref0 }, endEdit: { ref: e.ref1 } });
+      }
+      case 'circle':
+      case 'arc': {
+        if (![e.cx, e.cy, e.r].every(Number.isFinite) || (e.kind === 'arc' && ![e.startDeg, e.endDeg].every(Number.isFinite))) {
+          return this.malformed(f, e, `${e.type} has a value that is not a number`);
+        }
+        if (!(e.r > 0)) return this.malformed(f, e, `${e.type} radius ${e.r} is not positive`);
+        const g = this.getOcsFrame(f, e);
+        if (!g) return;
+        if (e.kind === 'circle') return this.push(g, e, layer, [getFullArc(e.cx, e.cy, e.r, 0, 0, e.r, e.span)], true);
+        // Counter-clockwise about the extrusion axis from start to end; sweep in (0°, 360°] (§6.4).
+        let sweepDeg = (e.endDeg - e.startDeg) % 360;
+        if (sweepDeg <= 0) sweepDeg += 360;
+        const [c0, s0] = getCosSinDeg(e.startDeg);
+        const [c1, s1] = getCosSinDeg(e.endDeg);
+        const arc: Arc = {
+          kind: 'arc', x0: e.cx + e.r * c0, y0: e.cy + e.r * s0, x1: e.cx + e.r * c1, y1: e.cy + e.r * s1,
+          cx: e.cx, cy: e.cy, ux: e.r, uy: 0, vx: 0, vy: e.r,
+          theta0: (e.startDeg * Math.PI) / 180, sweep: (sweepDeg * Math.PI) / 180, span: e.span,
+        };
+        return this.push(g, e, layer, [arc], false);
+      }
+      case 'ellipse': {
+        if (![e.cx, e.cy, e.mx, e.my, e.ratio, e.t0, e.t1].every(Number.isFinite)) return this.malformed(f, e, 'ELLIPSE has a value that is not a number');
+        if (!(e.ratio > 0 && e.ratio <= 1) || (e.mx === 0 && e.my === 0)) return this.malformed(f, e, 'ELLIPSE needs a non-zero major axis and a ratio in (0, 1]');
+        if (e.mz !== 0) return this.outOfPlane(f, e, 'its major axis leaves the drawing plane');
+        const len = Math.hypot(e.nx, e.ny, e.nz);
+        if (!getOcsMap(e.nx, e.ny, e.nz)) return this.outOfPlane(f, e, `normal (${e.nx}, ${e.ny}, ${e.nz}) is not perpendicular to the drawing plane`);
+        // Point(t) = C + cos t·M + sin t·ratio·(N × M), N = ±Z (§6.4); centre and axis are WCS.
+        const nz = e.nz / len;
+        const vx = -nz * e.my * e.ratio, vy = nz * e.mx * e.ratio;
+        let sweep = (e.t1 - e.t0) % (2 * Math.PI);
+        if (sweep <= 0) sweep += 2 * Math.PI;
+        const full = Math.abs(sweep - 2 * Math.PI) <= 1e-12 || sweep <= 1e-12;
+        if (full) return this.push(f, e, layer, [getFullArc(e.cx, e.cy, e.mx, e.my, vx, vy, e.span)], true);
+        const p0 = [e.cx + e.mx * Math.cos(e.t0) + vx * Math.sin(e.t0), e.cy + e.my * Math.cos(e.t0) + vy * Math.sin(e.t0)];
+        const t1 = e.t0 + sweep;
+        const p1 = [e.cx + e.mx * Math.cos(t1) + vx * Math.sin(t1), e.cy + e.my * Math.cos(t1) + vy * Math.sin(t1)];
+        return this.push(f, e, layer, [{
+          kind: 'arc', x0: p0[0], y0: p0[1], x1: p1[0], y1: p1[1], cx: e.cx, cy: e.cy, ux: e.mx, uy: e.my, vx, vy,
+          theta0: e.t0, sweep, span: e.span,
+        }], false);
+      }
+      case 'lwpolyline':
+        return this.addPolyline(e, layer, f, e.vertices, (e.flags & 1) !== 0, {
+          kind: 'lwpolyline', flags: e.flags, flagsSpan: e.flagsSpan, countSpan: e.countSpan, insertFlagsAt: e.insertFlagsAt,
+          vertexCount: e.vertices.length, lastVertexSpan: e.vertices[e.vertices.length - 1]?.span ?? e.span,
+        });
+      case 'polyline': {
+        if ((e.flags & (16 | 64)) !== 0) return this.noteOther('POLYLINE (mesh)', f, e);
+        // Spline frame control points (vertex flag 16) are not on the drawn curve (§6.4).
+        const vertices = e.vertices.filter((v) => (v.flags & 16) === 0);
+        if ((e.flags & 8) !== 0) {
+          const z0 = vertices[0]?.z ?? 0;
+          if (vertices.some((v) => v.z !== z0)) return this.outOfPlane(f, e, '3D polyline whose vertices lie at different heights');
+          // A flat 3D polyline: vertices are WCS and have no bulges.
+          return this.addPolyline({ ...e, nx: 0, ny: 0, nz: 1 }, layer, f, vertices.map((v) => ({ ...v, bulge: 0 })), (e.flags & 1) !== 0, undefined);
+        }
+        return this.addPolyline(e, layer, f, vertices, (e.flags & 1) !== 0, vertices.length === e.vertices.length ? {
+          kind: 'polyline', flags: e.flags, flagsSpan: e.flagsSpan, insertFlagsAt: e.insertFlagsAt,
+          vertexCount: vertices.length, lastVertexSpan: vertices[vertices.length - 1]?.span ?? e.span,
+        } : undefined);
+      }
+      case 'spline': {
+        const n = e.ctrl.length / 3;
+        if (n === 0) {
+          return this.malformed(f, e, e.fitCount > 0 ? 'SPLINE given by fit points only is not read (it has no control points)' : 'SPLINE has no control points');
+        }
+        const z0 = e.ctrl[2];
+        for (let i = 1; i < n; i++) {
+          if (e.ctrl[3 * i + 2] !== z0) return this.outOfPlane(f, e, 'control points lie at different heights');
+        }
+        const tolerance = SPLINE_FIT_TOLERANCE_MM / getMaxStretch(f.m);
+        const r = getSplineSegments(e, tolerance, e.span);
+        if (!r.ok) return this.malformed(f, e, r.detail);
+        if (r.capped) this.malformed(f, e, `SPLINE could not be approximated within ${SPLINE_FIT_TOLERANCE_MM} mm; its figures are less accurate`);
+        const closed = (e.flags & 1) !== 0 && samePoint(r.segments[0], r.segments[r.segments.length - 1]);
+        // A clamped spline starts and ends at its first and last control points, so those can be moved.
+        return this.push(f, e, layer, r.segments, closed, r.clamped ? { startEdit: e.firstRef && { ref: e.firstRef }, endEdit: e.lastRef && { ref: e.lastRef } } : {});
+      }
+      case 'insert':
+        return this.addInsert(e, layer, f);
+      case 'other':
+        return this.noteOther(e.type, f, e);
+    }
+  }
+
+  private addPolyline(
+    e: DxfEntity, layer: string, f: Frame, vertices: readonly (LwVertex | PolyVertex)[], closed: boolean, fix: PolylineFixInfo | undefined,
+  ): void {
+    const n = vertices.length;
+    if (n < 2) return this.malformed(f, e, `${e.type} has ${n} vertex${n === 1 ? '' : 'es'}; at least 2 are needed`);
+    if (!vertices.every((v) => Number.isFinite(v.x) && Number.isFinite(v.y) && Number.isFinite(v.bulge))) {
+      return this.malformed(f, e, `${e.type} has a vertex value that is not a number`);
+    }
+    const g = this.getOcsFrame(f, e);
+    if (!g) return;
+    const segments: Segment[] = [];
+    const count = closed ? n : n - 1;
+    for (let i = 0; i < count; i++) {
+      const a = vertices[i], b = vertices[(i + 1) % n];
+      const span = i + 1 < n ? { start: a.span.start, end: b.span.end } : a.span;
+      segments.push(getBulgeSegment(a.x, a.y, b.x, b.y, a.bulge, span));
+    }
+    this.push(g, e, layer, segments, closed, {
+      startSpan: vertices[0].span,
+      endSpan: vertices[n - 1].span,
+      startEdit: { ref: vertices[0].ref },
+      endEdit: { ref: vertices[n - 1].ref },
+      polyline: closed ? undefined : fix,
+      unflaggedPolyline: !closed,
+    });
+  }
+
+  private addInsert(e: DxfEntity & { kind: 'insert' }, layer: string, f: Frame): void {
+    const values = [e.x, e.y, e.sx, e.sy, e.rotationDeg, e.columns, e.rows, e.columnSpacing, e.rowSpacing];
+    if (!values.every(Number.isFinite)) return this.malformed(f, e, 'INSERT has a value that is not a number');
+    const block = this.blocks.get(e.name);
+    if (!block) return this.malformed(f, e, `INSERT refers to block "${e.name}", which is not defined`);
+    if (f.blocks.includes(e.name) || f.depth >= MAX_INSERT_DEPTH) {
+      return this.malformed(f, e, `block "${e.name}" inserts itself (directly or through other blocks)`);
+    }
+    const ocs = getOcsMap(e.nx, e.ny, e.nz);
+    if (!ocs) return this.outOfPlane(f, e, `extrusion direction (${e.nx}, ${e.ny}, ${e.nz}) is not perpendicular to the drawing plane`);
+    const columns = Math.max(1, Math.trunc(e.columns));
+    const rows = Math.max(1, Math.trunc(e.rows));
+    // Block point p → (p − base) → scale → rotate → + insertion point + rotated grid offset → OCS → WCS (§6.4).
+    const rot = rotationDeg(e.rotationDeg);
+    const local = compose(rot, compose(scaling(e.sx, e.sy), translation(-block.baseX, -block.baseY)));
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < columns; c++) {
+        if (++this.instances > MAX_INSTANCES) {
+          if (!this.instanceCapReported) this.malformed(f, e, `more than ${MAX_INSTANCES} block instances; the rest are not analysed`);
+          this.instanceCapReported = true;
+          return;
+        }
+        const offsetX = c * e.columnSpacing, offsetY = r * e.rowSpacing;
+        const tx = e.x + rot.a * offsetX + rot.c * offsetY;
+        const ty = e.y + rot.b * offsetX + rot.d * offsetY;
+        const m = compose(f.m, compose(ocs, compose(translation(tx, ty), local)));
+        const frame: Frame = {
+          m, top: f.top, editable: false, depth: f.depth + 1, blocks: [...f.blocks, e.name],
+        };
+        for (const be of block.entities) {
+          // Entities on layer 0 inside a block take the layer of the INSERT.
+          const beLayer = be.layer === '0' ? layer : be.layer;
+          if (be.paperSpace || this.skipHidden(beLayer)) continue;
+          this.addEntity(be, beLayer, frame);
+        }
+      }
+    }
+  }
+}
+
+function samePoint(first: Segment, last: Segment): boolean {
+  const [ex, ey] = getEnd(last);
+  return first.x0 === ex && first.y0 === ey;
+}
+
+/** End point of a segment. */
+export function getEnd(s: Segment): [number, number] {
+  switch (s.kind) {
+    case 'line':
+    case 'arc':
+      return [s.x1, s.y1];
+    case 'quad':
+      return [s.x2, s.y2];
+    case 'cubic':
+      return [s.x3, s.y3];
+  }
+}

@@ -1,0 +1,266 @@
+/**
+ * The DXF reader: ASCII DXF text → contours in WCS millimetres (y up), units, and reader problems.
+ *
+ * Steps: binary sentinel test (§6.6) → group scan and entity records (groups.ts, entities.ts) → units
+ * from $INSUNITS (units.ts) → exact duplicates set aside → entities to pieces through OCS and block
+ * inserts (pieces.ts) → loose open pieces chained end to end per layer (model/chain.ts) → contours,
+ * with the close fixes that edit only the value lines they must.
+ */
+import { fillTemplate, formatNumber } from '../../format';
+import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
+import { chainPieces, reverseSegments } from '../../model/chain';
+import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
+import { parseDxfDocument, type DxfEntity, type PointRef } from './entities';
+import { GroupScanner, isBinaryDxf } from './groups';
+import { getEnd, PieceBuilder, type Piece } from './pieces';
+import { getDxfUnits } from './units';
+
+export interface ReadDxfOptions {
+  readonly assumedUnit: AssumedUnit;
+}
+
+/** Related places listed per finding at most (the count is in the message). */
+const MAX_RELATED = 20;
+
+/** Reads an ASCII DXF text. Never throws: malformed input becomes problems and the rest is read. */
+export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
+  const problems: RawFinding[] = [];
+  if (isBinaryDxf(text)) {
+    problems.push({
+      checkId: 'parse-error', messageId: 'dxf', span: { start: 0, end: Math.min(text.length, 22) },
+      data: { detail: 'this is a binary DXF file; only ASCII DXF is read (save it as ASCII DXF)' },
+    });
+    return { format: 'dxf', yAxis: 'up', units: getDxfUnits(undefined, undefined, options.assumedUnit, problems), contours: [], problems };
+  }
+  const doc = parseDxfDocument(text);
+  problems.push(...doc.problems);
+  const units = getDxfUnits(doc.insunits, doc.headerSpan, options.assumedUnit, problems);
+
+  const builder = new PieceBuilder(doc.blocks, doc.layers, units.mmPerUnit);
+  const seen = new Map<number, DxfEntity[]>();
+  doc.entities.forEach((e, order) => {
+    if (e.kind !== 'other' && !e.paperSpace) {
+      const same = seen.get(e.hash);
+      const first = same?.find((o) => o.type === e.type && haveSameGroups(text, o.span, e.span));
+      if (first) {
+        problems.push({
+          checkId: 'duplicate-entity', messageId: 'duplicate', span: e.span,
+          data: { entity: e.type, line: first.line + 1 },
+          related: [{ span: first.span, message: `The first ${e.type}` }],
+          fixes: [{ title: `Remove the duplicate ${e.type}`, edits: [{ span: e.span, newText: '' }] }],
+        });
+        return;
+      }
+      if (same) same.push(e);
+      else seen.set(e.hash, [e]);
+    }
+    builder.addTopLevel(e, order);
+  });
+  reportNotes(builder, doc.layers, problems);
+  const contours = buildContours(text, builder.pieces, units, doc.eol, problems);
+  return { format: 'dxf', yAxis: 'up', units, contours, problems };
+}
+
+/** The groups of an entity's text, except handles and owners, as `code value` strings. */
+function getGroupList(text: string, span: SourceSpan): string[] {
+  const sc = new GroupScanner(text, span.start);
+  const out: string[] = [];
+  while (sc.offset < span.end && sc.next()) {
+    if (sc.code === 5 || sc.code === 330 || sc.code === 360 || sc.code === 102) continue;
+    out.push(`${sc.code} ${sc.name}`);
+  }
+  return out;
+}
+
+function haveSameGroups(text: string, a: SourceSpan, b: SourceSpan): boolean {
+  const ga = getGroupList(text, a);
+  const gb = getGroupList(text, b);
+  return ga.length === gb.length && ga.every((g, i) => g === gb[i]);
+}
+
+function reportNotes(builder: PieceBuilder, layers: ReturnType<typeof parseDxfDocument>['layers'], problems: RawFinding[]): void {
+  const { notes } = builder;
+  const related = (spans: SourceSpan[], message: string) => spans.slice(1, 1 + MAX_RELATED).map((span) => ({ span, message }));
+  for (const [entity, spans] of notes.notAnalysed) {
+    problems.push({
+      checkId: 'not-analysed', messageId: 'entities', span: spans[0],
+      data: { entity, count: spans.length }, related: related(spans, `Another ${entity}`),
+    });
+  }
+  for (const [name, count] of notes.hiddenLayers) {
+    const layer = layers.get(name);
+    if (!layer) continue;
+    const frozen = (layer.flags & 1) !== 0;
+    const off = layer.colour < 0;
+    const state = frozen && off ? 'frozen and off' : frozen ? 'frozen' : 'off';
+    problems.push({ checkId: 'not-analysed', messageId: 'hiddenLayer', span: layer.span, data: { layer: name, state, count } });
+  }
+  if (notes.paperSpace.length > 0) {
+    problems.push({
+      checkId: 'not-analysed', messageId: 'paperSpace', span: notes.paperSpace[0],
+      data: { count: notes.paperSpace.length }, related: related(notes.paperSpace, 'Another paper-space entity'),
+    });
+  }
+  for (const o of notes.outOfPlane) {
+    problems.push({ checkId: 'out-of-plane', messageId: 'tilted', span: o.span, data: { entity: o.entity, detail: o.detail } });
+  }
+  for (const m of notes.malformed) {
+    problems.push({ checkId: 'parse-error', messageId: 'dxf', span: m.span, data: { detail: m.detail } });
+  }
+}
+
+/** A number for a DXF value line: shortest round-trip text, never exponent notation. */
+export function formatDxfNumber(v: number): string {
+  const s = String(v);
+  if (!s.includes('e')) return s;
+  return v.toFixed(15).replace(/0+$/, '').replace(/\.$/, '');
+}
+
+/** Replaces a value line's text after its leading blanks. */
+function replaceValue(text: string, start: number, end: number, newText: string): TextEdit {
+  let s = start;
+  while (s < end && (text.charCodeAt(s) === 32 || text.charCodeAt(s) === 9)) s++;
+  return { span: { start: s, end }, newText };
+}
+
+function getValueText(text: string, start: number, end: number): string {
+  return text.slice(start, end).trim();
+}
+
+interface Draft {
+  readonly order: number;
+  readonly contour: Omit<Contour, 'index'>;
+}
+
+function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo, eol: string, problems: RawFinding[]): Contour[] {
+  const drafts: Draft[] = [];
+  const open: number[] = [];
+  pieces.forEach((p, i) => {
+    if (p.segments.length === 0) return;
+    if (p.closed) {
+      drafts.push({ order: p.order, contour: makeContour(p, p.segments, true, p.startSpan, p.endSpan) });
+    } else {
+      open.push(i);
+    }
+  });
+
+  const inputs = open.map((i) => {
+    const p = pieces[i];
+    const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
+    return { x0: p.segments[0].x0, y0: p.segments[0].y0, x1, y1, group: p.layer };
+  });
+  const { chains, branches } = chainPieces(inputs, CHAIN_TOLERANCE_MM);
+
+  for (const br of branches) {
+    const ps = br.pieces.map((k) => pieces[open[k]]);
+    problems.push({
+      checkId: 'branching', messageId: 'branch', span: ps[0].span,
+      data: { count: ps.length, xMm: br.x, yMm: br.y },
+      related: ps.slice(1, 1 + MAX_RELATED).map((p) => ({ span: p.span, message: `This ${p.element} also ends here` })),
+    });
+  }
+
+  for (const chain of chains) {
+    const links = chain.links.map((l) => ({ piece: pieces[open[l.piece]], reversed: l.reversed }));
+    const segments: Segment[] = [];
+    for (const l of links) {
+      if (l.reversed) segments.push(...reverseSegments(l.piece.segments));
+      else for (const s of l.piece.segments) segments.push(s);
+    }
+    const first = links[0];
+    const last = links[links.length - 1];
+    const startSpan = first.reversed ? first.piece.endSpan : first.piece.startSpan;
+    const endSpan = last.reversed ? last.piece.startSpan : last.piece.endSpan;
+    const single = links.length === 1 && first.piece.unflaggedPolyline;
+    const closed = chain.closed && !single;
+    let closeFix: Fix | undefined;
+    if (!closed) {
+      closeFix = single
+        ? getPolylineCloseFix(text, first.piece, segments, eol)
+        : getMoveEndFix(text, links, segments, units);
+    }
+    const order = Math.min(...links.map((l) => l.piece.order));
+    drafts.push({ order, contour: makeContour(first.piece, segments, closed, startSpan, endSpan, closeFix) });
+  }
+
+  drafts.sort((a, b) => a.order - b.order);
+  return drafts.map((d, index) => ({ index, ...d.contour }));
+}
+
+function makeContour(p: Piece, segments: Segment[], closed: boolean, startSpan: SourceSpan, endSpan: SourceSpan, closeFix?: Fix): Omit<Contour, 'index'> {
+  return {
+    segments, closed,
+    startX: segments[0].x0, startY: segments[0].y0,
+    span: p.span, startSpan, endSpan, elementSpan: p.span,
+    element: p.element, id: p.handle, layer: p.layer,
+    ...(closeFix ? { closeFix } : {}),
+  };
+}
+
+function getGapMm(segments: readonly Segment[]): number {
+  const [ex, ey] = getEnd(segments[segments.length - 1]);
+  return Math.hypot(ex - segments[0].x0, ey - segments[0].y0);
+}
+
+/**
+ * Near-closed LWPOLYLINE / POLYLINE: set the closed flag and drop the last vertex, so the closing
+ * segment runs from the last-but-one vertex to the first (the end moves onto the start; when the last
+ * vertex repeats the first, nothing else changes).
+ */
+function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[], eol: string): Fix | undefined {
+  const info = p.polyline;
+  if (!info || info.vertexCount < 3) return undefined;
+  const edits: TextEdit[] = [];
+  const flags = String(info.flags | 1);
+  if (info.flagsSpan) {
+    edits.push(replaceValue(text, info.flagsSpan.start, info.flagsSpan.end, flags));
+  } else {
+    // Pad the new code like the code line it is inserted before (codes are often right-justified).
+    const lineEnd = text.indexOf('\n', info.insertFlagsAt);
+    const nextCode = text.slice(info.insertFlagsAt, lineEnd < 0 ? text.length : lineEnd).replace(/\r$/, '');
+    const code = '70'.padStart(nextCode.length, ' ');
+    edits.push({ span: { start: info.insertFlagsAt, end: info.insertFlagsAt }, newText: `${code}${eol}${flags}${eol}` });
+  }
+  if (info.countSpan) edits.push(replaceValue(text, info.countSpan.start, info.countSpan.end, String(info.vertexCount - 1)));
+  edits.push({ span: info.lastVertexSpan, newText: '' });
+  edits.sort((a, b) => a.span.start - b.span.start);
+  const gapMm = getGapMm(segments);
+  return {
+    title: fillTemplate('Close the {entity}: drop its last vertex ({gapMm} mm from the first) and set the closed flag', { entity: p.element, gapMm }),
+    edits,
+  };
+}
+
+/** Near-closed chain: move one free end onto the other, editing only that point's value lines. */
+function getMoveEndFix(text: string, links: { piece: Piece; reversed: boolean }[], segments: readonly Segment[], units: UnitsInfo): Fix | undefined {
+  const first = links[0];
+  const last = links[links.length - 1];
+  const startRef = first.reversed ? first.piece.endEdit : first.piece.startEdit;
+  const endRef = last.reversed ? last.piece.startEdit : last.piece.endEdit;
+  const [ex, ey] = getEnd(segments[segments.length - 1]);
+  const sx = segments[0].x0, sy = segments[0].y0;
+  const target = (ref: PointRef | undefined, xMm: number, yMm: number): [string, string] =>
+    ref
+      ? [getValueText(text, ref.xs, ref.xe), getValueText(text, ref.ys, ref.ye)]
+      : [formatDxfNumber(xMm / units.mmPerUnit), formatDxfNumber(yMm / units.mmPerUnit)];
+  let moved: PointRef;
+  let to: [string, string];
+  let element: string;
+  if (endRef) {
+    moved = endRef.ref;
+    to = target(startRef?.ref, sx, sy);
+    element = last.piece.element;
+  } else if (startRef) {
+    moved = startRef.ref;
+    to = target(undefined, ex, ey);
+    element = first.piece.element;
+  } else {
+    return undefined;
+  }
+  if (moved.xs === moved.xe || moved.ys === moved.ye) return undefined;
+  const gapMm = Math.hypot(ex - sx, ey - sy);
+  return {
+    title: `Move the end of the ${element} onto the other end of the contour (${formatNumber(gapMm)} mm away)`,
+    edits: [replaceValue(text, moved.xs, moved.xe, to[0]), replaceValue(text, moved.ys, moved.ye, to[1])],
+  };
+}

@@ -1,0 +1,109 @@
+/**
+ * Which closed contours lie inside which (even-odd depth), parts (an outer boundary with its holes),
+ * net material area per part, orientation consistency, and the file summary.
+ *
+ * A contour's position is decided from one sample point on it (the midpoint of its first piece that
+ * is not on the other contour) by the exact winding number of every other closed contour around it
+ * (winding.ts); "inside" is an odd winding number (even-odd rule, SVG 2 `fill-rule: evenodd`).
+ * Candidate containers come from a flatbush index of contour boxes. [common practice, no source]
+ */
+import Flatbush from 'flatbush';
+import type { ContourResult } from '../types';
+import { getPiecePoint } from './intersectPieces';
+import { createWindingTester, type WindingTester } from './winding';
+
+export interface Part {
+  /** Contour index of the outer boundary. */
+  readonly outer: number;
+  /** Contour indices of its holes. */
+  readonly holes: readonly number[];
+  /** |area of the outer boundary| − Σ |area of each hole| (mm²). */
+  readonly netAreaMm2: number;
+  /** Every hole turns the other way from the outer boundary (information only; null when an orientation is undefined). */
+  readonly orientationConsistent: boolean | null;
+}
+
+export interface Nesting {
+  /** Per contour (by position): index of the innermost closed contour containing it, or null. */
+  readonly parent: readonly (number | null)[];
+  /** Per contour: number of closed contours containing it (even = material boundary, odd = hole). */
+  readonly depth: readonly number[];
+  readonly parts: readonly Part[];
+}
+
+export interface FileSummary {
+  readonly contours: number;
+  readonly parts: number;
+  /** One pierce per contour that has something to cut. */
+  readonly pierces: number;
+  readonly cutLengthMm: number;
+  readonly netAreaMm2: number;
+}
+
+function samplePoints(t: WindingTester): [number, number][] {
+  const out: [number, number][] = [];
+  for (let i = 0; i < t.pieces.count && out.length < 8; i++) out.push(getPiecePoint(t.pieces.buf, i, 0.5));
+  return out;
+}
+
+export function getNesting(contours: readonly ContourResult[]): Nesting {
+  const n = contours.length;
+  const testers = contours.map((c) => createWindingTester(c.contour));
+  const closed = contours.map((c) => c.metrics.closed && c.contour.segments.length > 0);
+  const parent: (number | null)[] = new Array(n).fill(null);
+  const depth: number[] = new Array(n).fill(0);
+  const indexed = contours.map((_, i) => i).filter((i) => closed[i]);
+  const tree = indexed.length > 0 ? new Flatbush(indexed.length) : null;
+  for (const i of indexed) {
+    const [a, b, c, d] = contours[i]!.metrics.bboxMm;
+    tree!.add(a, b, c, d);
+  }
+  tree?.finish();
+  const area = (i: number) => contours[i]!.metrics.areaMm2.value ?? 0;
+  for (let i = 0; i < n; i++) {
+    const samples = samplePoints(testers[i]!);
+    if (samples.length === 0 || !tree) continue;
+    const [sx, sy] = samples[0]!;
+    for (const k of tree.search(sx, sy, sx, sy)) {
+      const j = indexed[k]!;
+      if (j === i) continue;
+      let inside: boolean | null = null;
+      for (const [x, y] of samples) {
+        const r = testers[j]!.getWinding(x, y);
+        if (!r.onBoundary) {
+          inside = Math.abs(r.winding) % 2 === 1;
+          break;
+        }
+      }
+      if (!inside) continue;
+      depth[i]!++;
+      const p = parent[i];
+      if (p === null || p === undefined || area(j) < area(p)) parent[i] = j;
+    }
+  }
+  const parts: Part[] = [];
+  for (let i = 0; i < n; i++) {
+    if (!closed[i] || depth[i]! % 2 !== 0) continue;
+    const holes = contours.map((_, k) => k).filter((k) => closed[k] && parent[k] === i && depth[k]! % 2 === 1);
+    const o = contours[i]!.metrics.orientation;
+    const orientations = holes.map((h) => contours[h]!.metrics.orientation);
+    const consistent = o === null || orientations.some((h) => h === null) ? null : orientations.every((h) => h !== o);
+    parts.push({
+      outer: contours[i]!.contour.index,
+      holes: holes.map((h) => contours[h]!.contour.index),
+      netAreaMm2: area(i) - holes.reduce((s, h) => s + area(h), 0),
+      orientationConsistent: consistent,
+    });
+  }
+  return { parent: parent.map((p) => (p === null ? null : contours[p]!.contour.index)), depth, parts };
+}
+
+export function getFileSummary(contours: readonly ContourResult[], nesting: Nesting = getNesting(contours)): FileSummary {
+  return {
+    contours: contours.length,
+    parts: nesting.parts.length,
+    pierces: contours.filter((c) => c.contour.segments.length > 0).length,
+    cutLengthMm: contours.reduce((s, c) => s + c.metrics.lengthMm, 0),
+    netAreaMm2: nesting.parts.reduce((s, p) => s + p.netAreaMm2, 0),
+  };
+}

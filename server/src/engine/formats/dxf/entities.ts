@@ -130,6 +130,8 @@ interface Started {
   type: string;
   start: number;
   line: number;
+  /** Scanner problems before the entity began: more at its end means it is malformed. */
+  problemsBefore: number;
 }
 
 class DocumentBuilder {
@@ -187,7 +189,7 @@ class DocumentBuilder {
         }
         if (name === 'EOF') break;
         if (section === 'ENTITIES' || section === 'BLOCKS') {
-          current = { type: name, start: sc.codeStart, line: sc.codeLine };
+          current = { type: name, start: sc.codeStart, line: sc.codeLine, problemsBefore: sc.problems.length };
           this.buf.reset();
         } else if (section === 'TABLES' && name === 'LAYER') {
           layer = { start: sc.codeStart, name: '', flags: 0, colour: 7 };
@@ -234,6 +236,8 @@ class DocumentBuilder {
   private finishEntity(started: Started, end: number): void {
     const { type, start, line } = started;
     const span = { start, end };
+    // An entity with a malformed group (already reported at its line) is left out: its values are unreliable.
+    if (this.sc.problems.length > started.problemsBefore && type !== 'SEQEND' && type !== 'ENDBLK') return;
     const b = this.buf;
     const text = this.text;
     let layer = '0';

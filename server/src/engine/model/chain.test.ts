@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest';
+import type { Arc } from '../types';
+import { chainPieces, reverseSegment } from './chain';
+
+const piece = (x0: number, y0: number, x1: number, y1: number, group = 'a') => ({ x0, y0, x1, y1, group });
+
+describe('chainPieces', () => {
+  it('joins a reversed, shuffled square into one closed chain with each piece once', () => {
+    // Square (0,0)-(1,0)-(1,1)-(0,1); pieces 1 and 3 drawn backwards, order shuffled.
+    const r = chainPieces([piece(1, 1, 1, 0), piece(0, 0, 1, 0), piece(0, 0, 0, 1), piece(1, 1, 0, 1)], 1e-9);
+    expect(r.branches).toEqual([]);
+    expect(r.chains).toHaveLength(1);
+    expect(r.chains[0].closed).toBe(true);
+    expect(r.chains[0].links.map((l) => l.piece).sort()).toEqual([0, 1, 2, 3]);
+    expect(r.chains[0].links[0]).toEqual({ piece: 0, reversed: false });
+  });
+
+  it('walks an open chain from its free end, whatever piece comes first', () => {
+    const r = chainPieces([piece(2, 0, 1, 0), piece(0, 0, 1, 0), piece(2, 0, 3, 0)], 1e-9);
+    expect(r.chains).toHaveLength(1);
+    expect(r.chains[0].closed).toBe(false);
+    const l = r.chains[0].links;
+    // Either end of the path is a valid start; the walk must be continuous.
+    expect(l.map((x) => x.piece)).toEqual(l[0].piece === 1 ? [1, 0, 2] : [2, 0, 1]);
+  });
+
+  it('joins ends within the tolerance and not beyond it', () => {
+    expect(chainPieces([piece(0, 0, 1, 0), piece(1 + 0.9e-3, 0, 2, 0)], 1e-3).chains).toHaveLength(1);
+    expect(chainPieces([piece(0, 0, 1, 0), piece(1 + 1.1e-3, 0, 2, 0)], 1e-3).chains).toHaveLength(2);
+  });
+
+  it('reports three ends at one point as a branch with all three pieces', () => {
+    const r = chainPieces([piece(0, 0, 1, 0), piece(1, 0, 2, 0), piece(1, 0, 1, 1)], 1e-9);
+    expect(r.branches).toEqual([{ x: 1, y: 0, pieces: [0, 1, 2] }]);
+  });
+
+  it('chains 10 000 segments of a polygon given in reverse order (scales, common practice)', () => {
+    const n = 10_000;
+    const pts = Array.from({ length: n }, (_, i) => [Math.cos((2 * Math.PI * i) / n), Math.sin((2 * Math.PI * i) / n)]);
+    const pieces = pts.map((_, i) => piece(pts[(i + 1) % n][0], pts[(i + 1) % n][1], pts[i][0], pts[i][1])).reverse();
+    const r = chainPieces(pieces, 1e-9);
+    expect(r.chains).toHaveLength(1);
+    expect(r.chains[0].closed).toBe(true);
+    expect(r.chains[0].links).toHaveLength(n);
+  });
+});
+
+describe('reverseSegment', () => {
+  it('reverses an arc by swapping its ends and running θ back (θ0 + sweep, −sweep)', () => {
+    const span = { start: 0, end: 1 };
+    const a: Arc = { kind: 'arc', x0: 1, y0: 0, x1: 0, y1: 1, cx: 0, cy: 0, ux: 1, uy: 0, vx: 0, vy: 1, theta0: 0, sweep: Math.PI / 2, span };
+    const r = reverseSegment(a) as Arc;
+    expect([r.x0, r.y0, r.x1, r.y1]).toEqual([0, 1, 1, 0]);
+    // The point at the new start angle is the old end point (unit circle, handbook).
+    expect(Math.cos(r.theta0)).toBeCloseTo(0, 15);
+    expect(Math.sin(r.theta0)).toBeCloseTo(1, 15);
+    expect(r.sweep).toBe(-Math.PI / 2);
+  });
+});

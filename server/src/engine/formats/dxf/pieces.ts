@@ -164,7 +164,9 @@ export class PieceBuilder {
   private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<Piece> = {}): void {
     const inBlock = f.depth > 0;
     const spanOf = (s: SourceSpan) => (inBlock ? f.top.span : s);
-    const mapped = segments.map((s) => mapSegment(f.m, s, spanOf(s.span)));
+    const m = f.m;
+    const identity = !inBlock && m.a === 1 && m.b === 0 && m.c === 0 && m.d === 1 && m.e === 0 && m.f === 0;
+    const mapped = identity ? segments : segments.map((s) => mapSegment(m, s, spanOf(s.span)));
     this.pieces.push({
       segments: mapped,
       closed,

@@ -671,7 +671,8 @@ export function findIntersections(contours: readonly Contour[], options: Interse
   const provisional = buildPieces(contours, 0);
   const size = getSize(provisional);
   const eps = Math.max(RELATIVE_POINT_TOLERANCE * size, Number.MIN_VALUE);
-  const P = buildPieces(contours, eps);
+  // Rebuild only when some segment or closing gap is within eps (it is then dropped as a point).
+  const P = provisional.minKeptExtent > eps ? provisional : buildPieces(contours, eps);
   const col = new Collector(P, eps);
   const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps };
   if (P.count < 2) return result;

@@ -40,6 +40,8 @@ export interface Pieces {
   readonly chains: readonly PieceChain[];
   /** Bounding box of all pieces [minX, minY, maxX, maxY] (Infinity when empty). */
   readonly bbox: readonly [number, number, number, number];
+  /** Smallest control extent of a kept segment or closing gap: with a larger `pointTol` the pieces would differ. */
+  readonly minKeptExtent: number;
 }
 
 class PieceWriter {
@@ -220,13 +222,16 @@ function controlExtent(s: Segment): number {
 export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
   const w = new PieceWriter();
   const chains: PieceChain[] = [];
+  let minKept = Infinity;
   for (let ci = 0; ci < contours.length; ci++) {
     const c = contours[ci]!;
     const first = w.count;
     let lastX = c.startX, lastY = c.startY;
     for (let si = 0; si < c.segments.length; si++) {
       const s = c.segments[si]!;
-      if (controlExtent(s) <= pointTol) continue;
+      const extent = controlExtent(s);
+      if (extent <= pointTol) continue;
+      minKept = Math.min(minKept, extent);
       switch (s.kind) {
         case 'line': addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1); break;
         case 'quad': case 'cubic': addBezier(w, ci, si, s); break;
@@ -238,6 +243,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
       [lastX, lastY] = segmentEnd(s);
     }
     const gap = Math.hypot(lastX - c.startX, lastY - c.startY);
+    if (gap > pointTol) minKept = Math.min(minKept, gap);
     if (c.closed && gap > pointTol) addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);
     const count = w.count - first;
     chains.push({ contour: ci, first, count, cyclic: count > 0 && (c.closed || gap <= pointTol) });
@@ -251,7 +257,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
     minY = Math.min(minY, b[o + 5]!, b[o + 7]!);
     maxY = Math.max(maxY, b[o + 5]!, b[o + 7]!);
   }
-  return { buf: w.buf, contourOf: w.contourOf, count: w.count, chains, bbox: [minX, minY, maxX, maxY] };
+  return { buf: w.buf, contourOf: w.contourOf, count: w.count, chains, bbox: [minX, minY, maxX, maxY], minKeptExtent: minKept };
 }
 
 /** Point of piece i at local parameter u ∈ [0, 1]. */

@@ -84,21 +84,6 @@ export function getPolynomialRoots(coefficients: readonly number[], lo: number, 
   return out;
 }
 
-/** Product of two polynomials in ascending coefficients. */
-export function multiplyPolynomials(a: readonly number[], b: readonly number[]): number[] {
-  const out = new Array<number>(a.length + b.length - 1).fill(0);
-  for (let i = 0; i < a.length; i++) for (let j = 0; j < b.length; j++) out[i + j]! += a[i]! * b[j]!;
-  return out;
-}
-
-/** Sum of polynomials in ascending coefficients. */
-export function addPolynomials(...ps: readonly (readonly number[])[]): number[] {
-  const n = Math.max(...ps.map((p) => p.length));
-  const out = new Array<number>(n).fill(0);
-  for (const p of ps) for (let i = 0; i < p.length; i++) out[i]! += p[i]!;
-  return out;
-}
-
 /**
  * Power-basis coefficients of one coordinate of a Bézier curve of degree 1–3 given its Bernstein
  * control values. [src: standard Bernstein-to-monomial conversion, e.g. Farin, *Curves and Surfaces

@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { contourFromSegments, ellipseArc, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import { measureContour } from './measure';
 import { getConvexHull, getHull } from './hull';
-import { getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
+import { getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
 const roundnessOf = (pts: readonly (readonly [number, number])[]) => {

@@ -270,6 +270,9 @@ describe('the installed command', () => {
     expect(files).toEqual([
       'samples/bracket-damaged.svg',
       'samples/coaster-no-size.svg',
+      'samples/fernhollow-gasket-blocks.dxf',
+      'samples/fernhollow-lamp-panel-loose.dxf',
+      'samples/fernhollow-spline-knob.dxf',
       'samples/gasket-plate.svg',
       'samples/lamp-panel-draft.svg',
       'samples/lamp-panel.svg',

@@ -1,11 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { applyEdits } from '../../../../test/support/applyEdits';
+import { dxf } from '../../../../test/support/dxfText';
 import { analyze } from '../index';
 
-/** An ASCII DXF text (millimetres) from group pairs of entities. */
-const dxf = (...entities: (string | number)[][]) =>
-  ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES', ...entities.flat(), '0', 'ENDSEC', '0', 'EOF'].join('\n') + '\n';
-const line = (x0: number, y0: number, x1: number, y1: number) => ['0', 'LINE', '8', 'CUT', '10', x0, '20', y0, '11', x1, '21', y1];
 
 describe('out-of-plane', () => {
   it('is silent for an ARC mirrored by extrusion (0, 0, -1), which stays in the plane (REFERENCES.md §6.5)', () => {

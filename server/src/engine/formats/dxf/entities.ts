@@ -121,7 +121,7 @@ class GroupBuffer {
  * The entity record: base fields written out, then the kind's fields. (Spreading `base` into each
  * literal made V8 build slow objects: 10× slower reading in the benchmark.)
  */
-function withBase<T extends object>(b: EntityBase, extra: T): EntityBase & T {
+function withBase<const T extends object>(b: EntityBase, extra: T): EntityBase & T {
   const o: EntityBase = {
     type: b.type, span: b.span, line: b.line, layer: b.layer, handle: b.handle, paperSpace: b.paperSpace,
     nx: b.nx, ny: b.ny, nz: b.nz, hash: b.hash,

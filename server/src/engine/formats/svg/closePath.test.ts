@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Segment, TextEdit } from '../../types';
+import { getSegmentEnd } from '../../geometry/bounds';
 import { parsePathData, type PathSubpath } from './pathData';
 
 // The fix's contract (REFERENCES §5.4, "move the last point onto the first and append Z"; the
@@ -15,15 +16,6 @@ function applyEdits(text: string, base: number, edits: readonly TextEdit[]): str
     limit = e.span.start;
   }
   return out;
-}
-
-function getEnd(s: Segment): [number, number] {
-  switch (s.kind) {
-    case 'line': return [s.x1, s.y1];
-    case 'quad': return [s.x2, s.y2];
-    case 'cubic': return [s.x3, s.y3];
-    case 'arc': return [s.x1, s.y1];
-  }
 }
 
 /** Segment geometry without spans (spans shift when text before them changes). */
@@ -54,7 +46,7 @@ function checkCloseFix(d: string, index: number): { fixed: string; title: string
     }
     expect(s.closed).toBe(true);
     expect([s.startX, s.startY]).toEqual([sub.startX, sub.startY]);
-    expect(getEnd(s.segments[s.segments.length - 1]!)).toEqual([s.startX, s.startY]); // gap 0, exactly
+    expect(getSegmentEnd(s.segments[s.segments.length - 1]!)).toEqual([s.startX, s.startY]); // gap 0, exactly
     expect(s.segments.length).toBe(sub.segments.length);
     // Every segment but the last is unchanged; the last keeps its start.
     expect(getGeometry(s.segments.slice(0, -1))).toEqual(getGeometry(sub.segments.slice(0, -1)));

@@ -1,3 +1,4 @@
+import { getSegmentEnd } from '../../geometry/bounds';
 import type { Fix, Segment, SourceSpan, TextEdit } from '../../types';
 
 /**
@@ -61,7 +62,7 @@ export function getCloseFix(
   const sx = subpath.startX;
   const sy = subpath.startY;
   const last = subpath.segments[subpath.segments.length - 1]!;
-  const [ex, ey] = getEndPoint(last);
+  const [ex, ey] = getSegmentEnd(last);
   const at = (start: number, end: number): SourceSpan => ({ start: base + start, end: base + end });
   if (ex === sx && ey === sy) {
     return { title: TITLE_ADD_Z, edits: [{ span: at(group.end, group.end), newText: 'Z' }] };
@@ -76,15 +77,6 @@ export function getCloseFix(
     });
   }
   return { title: TITLE_MOVE_AND_Z, edits };
-}
-
-function getEndPoint(seg: Segment): [number, number] {
-  switch (seg.kind) {
-    case 'line': return [seg.x1, seg.y1];
-    case 'quad': return [seg.x2, seg.y2];
-    case 'cubic': return [seg.x3, seg.y3];
-    case 'arc': return [seg.x1, seg.y1];
-  }
 }
 
 /** Shortest round-trip text of a number (never "-0"). */

@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
-import type { Arc, Segment } from '../../types';
+import type { Arc } from '../../types';
+import { getSegmentEnd } from '../../geometry/bounds';
 import { parsePathData } from './pathData';
 
 // Independent reference: the npm package svg-path-parser (a PEG grammar of SVG 1.1 path data) with
@@ -18,15 +19,6 @@ const svgPathParser = createRequire(import.meta.url)('svg-path-parser') as {
 };
 function parseReference(d: string): RefCommand[] {
   return svgPathParser.makeAbsolute(svgPathParser.parseSVG(d));
-}
-
-function getEnd(s: Segment): [number, number] {
-  switch (s.kind) {
-    case 'line': return [s.x1, s.y1];
-    case 'quad': return [s.x2, s.y2];
-    case 'cubic': return [s.x3, s.y3];
-    case 'arc': return [s.x1, s.y1];
-  }
 }
 
 const slice = (text: string, span: { start: number; end: number }, base = 0): string =>
@@ -68,7 +60,7 @@ describe('parsePathData agrees with svg-path-parser (independent reference)', ()
     drawn.forEach((c, k) => {
       const s = segments[k]!;
       expect([s.x0, s.y0]).toEqual([c.x0, c.y0]);
-      expect(getEnd(s)).toEqual([c.x, c.y]);
+      expect(getSegmentEnd(s)).toEqual([c.x, c.y]);
       if (c.code === 'C') expect(s.kind === 'cubic' && [s.x1, s.y1, s.x2, s.y2]).toEqual([c.x1, c.y1, c.x2, c.y2]);
       if (c.code === 'S') expect(s.kind === 'cubic' && [s.x2, s.y2]).toEqual([c.x2, c.y2]);
       if (c.code === 'Q') expect(s.kind === 'quad' && [s.x1, s.y1]).toEqual([c.x1, c.y1]);
@@ -91,7 +83,7 @@ describe('parsePathData agrees with svg-path-parser (independent reference)', ()
   it('reads a drawing command after Z as a new subpath from the same start (REFERENCES §5.1)', () => {
     const r = parsePathData('M10 10 h5 v5 z l5 5', 0);
     expect(r.subpaths.map((s) => [s.startX, s.startY, s.closed])).toEqual([[10, 10, true], [10, 10, false]]);
-    expect(getEnd(r.subpaths[1]!.segments[0]!)).toEqual([15, 15]);
+    expect(getSegmentEnd(r.subpaths[1]!.segments[0]!)).toEqual([15, 15]);
   });
 
   it('reflects the previous C/S control point for S and the previous Q/T control point for T (REFERENCES §5.1)', () => {

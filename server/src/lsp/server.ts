@@ -15,6 +15,7 @@ import { ModelCache } from './modelCache';
 import { ReanalyzeRequest } from './protocol';
 import { formatError, runSafeAsync } from './runner';
 import { SettingsStore } from './settings';
+import { getDocumentSymbols } from './symbols';
 import { ValidationQueue } from './validation';
 
 /** The file format Loopwise reads for a document URI, from the extension of its path. */
@@ -112,6 +113,7 @@ export function startServer(connection: Connection): void {
       capabilities: {
         textDocumentSync: TextDocumentSyncKind.Incremental,
         hoverProvider: true,
+        documentSymbolProvider: true,
         ...(features.codeActionLiterals
           ? { codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] } }
           : {}),
@@ -156,6 +158,22 @@ export function startServer(connection: Connection): void {
       },
       null,
       `hover in ${params.textDocument.uri}`,
+    ),
+  );
+
+  connection.onDocumentSymbol((params, token) =>
+    runSafeAsync(
+      connection.console,
+      token,
+      async () => {
+        const document = documents.get(params.textDocument.uri);
+        if (!document) return [];
+        const result = await getAnalysis(document, token);
+        if (!result) return [];
+        return getDocumentSymbols(result.contours, document);
+      },
+      [],
+      `document symbols in ${params.textDocument.uri}`,
     ),
   );
 

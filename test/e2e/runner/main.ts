@@ -111,7 +111,7 @@ async function runUiScenarios(browser: Browser, server: CodeServer, workspace: s
     for (const [i, scenario] of UI_SCENARIOS.entries()) {
       const t0 = Date.now();
       try {
-        await scenario.run(page);
+        await scenario.run(page, { workspace });
         passed++;
         console.log(`  ✓ ui › ${scenario.title} (${Date.now() - t0} ms)`);
       } catch (error) {

@@ -3,11 +3,18 @@
  * in-host suite. Each waits on what it looks for (Playwright's auto-waiting locators with a
  * deadline), never on fixed sleeps. Fixtures: test/e2e/workspace/README.md.
  */
+import { readFileSync } from 'node:fs';
+import * as path from 'node:path';
 import type { Page } from 'playwright-core';
+
+export interface UiContext {
+  /** The scratch workspace folder code-server has open (files on disk). */
+  readonly workspace: string;
+}
 
 export interface UiScenario {
   readonly title: string;
-  run(page: Page): Promise<void>;
+  run(page: Page, context: UiContext): Promise<void>;
 }
 
 const UI_TIMEOUT_MS = 30_000;
@@ -38,6 +45,19 @@ async function runCommand(page: Page, title: string): Promise<void> {
   await input.fill(`>${title}`);
   await page.locator('.quick-input-list .monaco-list-row', { hasText: title }).first().waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
   await page.keyboard.press('Enter');
+}
+
+/** Moves the cursor to the first occurrence of `needle` in `text` (+ `delta`) with Go to Line (Ctrl+G, `:line:column`). */
+async function goTo(page: Page, text: string, needle: string, delta = 0): Promise<void> {
+  const offset = text.indexOf(needle);
+  if (offset < 0) throw new Error(`"${needle}" is not in the file`);
+  const lines = text.slice(0, offset + delta).split('\n');
+  await page.keyboard.press('Control+G');
+  const input = page.locator('.quick-input-widget input');
+  await input.waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+  await input.fill(`:${lines.length}:${lines[lines.length - 1]!.length + 1}`);
+  await page.keyboard.press('Enter');
+  await input.waitFor({ state: 'hidden', timeout: UI_TIMEOUT_MS });
 }
 
 export const UI_SCENARIOS: readonly UiScenario[] = [
@@ -72,6 +92,43 @@ export const UI_SCENARIOS: readonly UiScenario[] = [
       // Rectangle perimeter 2(a+b) = 2(40 + 20) = 120 mm (REFERENCES.md §2.3).
       const text = await hover.first().innerText();
       if (!/Perimeter\s+120 mm/.test(text)) throw new Error(`the hover card does not show a 120 mm perimeter:\n${text}`);
+    },
+  },
+  {
+    title: 'a quick fix chosen from the light-bulb menu closes the contour of ui-quickfix.svg, and the saved file on disk holds the fix',
+    async run(page, { workspace }) {
+      const file = path.join(workspace, 'ui-quickfix.svg');
+      const before = readFileSync(file, 'utf8');
+      await openFile(page, 'ui-quickfix.svg');
+      // The warning squiggle shows the near-closed finding has arrived (gap |10.04 − 10| = 0.04 mm).
+      await page.locator('.editor-instance .squiggly-warning').first().waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+      await goTo(page, before, 'V 10.04', 3);
+      // The light bulb: a widget beside the code, or a glyph-margin decoration when the line starts with code.
+      const bulb = page.locator('.editor-instance .lightBulbWidget:visible, .editor-instance .glyph-margin-widgets [class*="gutter-lightbulb"]').first();
+      await bulb.waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+      await bulb.click();
+      const item = page.locator('.action-widget .monaco-list-row', { hasText: /Close the contour/ }).first();
+      await item.waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+      // The menu lays a pointer block over the page until the mouse moves; move onto the item, then click it.
+      const box = await item.boundingBox();
+      if (!box) throw new Error('the quick-fix item is not on screen');
+      await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2, { steps: 5 });
+      await page.locator('.context-view-pointerBlock').waitFor({ state: 'detached', timeout: UI_TIMEOUT_MS });
+      await item.click();
+      // Applied: the tab turns dirty; save and wait until it is clean again, i.e. written to disk.
+      await page.locator('.tabs-container .tab.active.dirty', { hasText: 'ui-quickfix.svg' }).waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+      await page.keyboard.press('Control+S');
+      await page.locator('.tabs-container .tab.active:not(.dirty)', { hasText: 'ui-quickfix.svg' }).waitFor({ state: 'visible', timeout: UI_TIMEOUT_MS });
+      const after = readFileSync(file, 'utf8');
+      // SVG 2 Paths, "The closepath command": the last point moves onto the start (10, 10) and Z closes
+      // the path, so no 0.04 mm sliver is cut; nothing else in the file changes.
+      const d = /id="door" d="([^"]*)"/.exec(after)?.[1] ?? '';
+      if (!/^M 10 10 H 40 V 30 H 10 V 10 ?Z$/.test(d)) throw new Error(`the path data on disk is not closed onto its start: "${d}"`);
+      if (after.replace(d, '@') !== before.replace('M 10 10 H 40 V 30 H 10 V 10.04', '@')) {
+        throw new Error(`more than the path data changed on disk:\n${after}`);
+      }
+      // And the warning goes away.
+      await page.locator('.editor-instance .squiggly-warning').first().waitFor({ state: 'detached', timeout: UI_TIMEOUT_MS });
     },
   },
 ];

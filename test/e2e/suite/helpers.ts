@@ -99,6 +99,12 @@ export function getHoverText(hovers: readonly vscode.Hover[]): string {
     .join('\n');
 }
 
+/** The document symbols as VS Code's outline gets them (DocumentSymbol: range, selection range, detail). */
+export async function getSymbols(document: vscode.TextDocument): Promise<vscode.DocumentSymbol[]> {
+  const symbols = await vscode.commands.executeCommand<vscode.DocumentSymbol[] | undefined>('vscode.executeDocumentSymbolProvider', document.uri);
+  return symbols ?? [];
+}
+
 /** The `d` attribute of the path with the given id. */
 export function getPathData(text: string, id: string): string {
   const element = new RegExp(`<path\\b[^>]*\\bid="${id}"[^>]*>`).exec(text);

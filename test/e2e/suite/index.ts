@@ -11,6 +11,8 @@ import './diagnostics.e2e';
 import './hover.e2e';
 import './quickFix.e2e';
 import './settings.e2e';
+import './symbols.e2e';
+import './dxf.e2e';
 
 /** Marks the suite's own lines in the forwarded extension-host console, so the runner can echo them. */
 export const LINE_MARKER = '[loopwise-e2e] ';

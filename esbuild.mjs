@@ -23,6 +23,7 @@ const common = {
 const entries = [
   { entryPoints: ['client/src/extension.ts'], outfile: 'dist/client.js' },
   { entryPoints: ['server/src/lsp/node/main.ts'], outfile: 'dist/server.js' },
+  { entryPoints: ['server/src/lsp/node/analysisWorker.ts'], outfile: 'dist/analysisWorker.js' },
   { entryPoints: ['server/src/cli/main.ts'], outfile: 'dist/cli.js' },
 ];
 

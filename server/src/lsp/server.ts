@@ -6,8 +6,9 @@
 import { CodeActionKind, MarkupKind, TextDocumentSyncKind, TextDocuments } from 'vscode-languageserver';
 import type { CancellationToken, ClientCapabilities, Connection, InitializeResult } from 'vscode-languageserver';
 import { TextDocument } from 'vscode-languageserver-textdocument';
-import { AnalysisCancelled, analyze, getFormatForPath } from '../engine/index';
+import { getFormatForPath } from '../engine/index';
 import type { AnalysisResult, FileFormat } from '../engine/index';
+import type { Analyser } from './analyser';
 import { getCodeActions } from './codeActions';
 import { toDiagnostic } from './diagnostics';
 import { getHover } from './hover';
@@ -48,9 +49,12 @@ function getClientFeatures(capabilities: ClientCapabilities): ClientFeatures {
   };
 }
 
-export function startServer(connection: Connection): void {
+/** Starts serving on `connection`; analyses run on `analyser` (worker threads in the shipped server). */
+export function startServer(connection: Connection, analyser: Analyser): void {
   const documents = new TextDocuments(TextDocument);
   const cache = new ModelCache<AnalysisResult>();
+  /** Analyses under way by (uri, version, generation), so a hover during validation waits for the same run. */
+  const running = new Map<string, Promise<AnalysisResult | undefined>>();
   let features: ClientFeatures = getClientFeatures({});
   const settings = new SettingsStore(connection, () => features.configuration);
   /** Bumped whenever the settings change, so results computed with older settings are not cached. */
@@ -68,19 +72,25 @@ export function startServer(connection: Connection): void {
     const startGeneration = generation;
     const cached = cache.get(uri, version, startGeneration);
     if (cached) return cached;
-    const options = await settings.get(uri);
-    const isOutdated = () =>
-      documents.get(uri)?.version !== version || generation !== startGeneration || token?.isCancellationRequested === true;
-    if (isOutdated()) return undefined;
-    let result: AnalysisResult;
+    const key = `${startGeneration}:${version}:${uri}`;
+    const pending = running.get(key);
+    if (pending) return pending;
+    // Cancelling one request does not stop a run that others (validation) may be waiting for.
+    const isOutdated = () => documents.get(uri)?.version !== version || generation !== startGeneration;
+    const run = (async () => {
+      const options = await settings.get(uri);
+      if (isOutdated()) return undefined;
+      const result = await analyser.analyse(document.getText(), format, options, isOutdated);
+      if (result) cache.set(uri, version, startGeneration, result);
+      return result;
+    })();
+    running.set(key, run);
     try {
-      result = analyze(document.getText(), format, { ...options, isCancelled: isOutdated });
-    } catch (error) {
-      if (error instanceof AnalysisCancelled) return undefined;
-      throw error;
+      const result = await run;
+      return token?.isCancellationRequested ? undefined : result;
+    } finally {
+      running.delete(key);
     }
-    cache.set(uri, version, startGeneration, result);
-    return result;
   }
 
   async function validate(uri: string): Promise<void> {
@@ -216,6 +226,8 @@ export function startServer(connection: Connection): void {
       'reanalysing open files',
     ),
   );
+
+  connection.onShutdown(() => analyser.dispose());
 
   documents.listen(connection);
   connection.listen();

@@ -2,7 +2,10 @@
  * Node entry of the language server (bundled to dist/server.js). The transport comes from argv:
  * `--node-ipc` when VS Code starts it, `--stdio` (or `--socket=<port>`) for other clients and tests.
  */
+import { availableParallelism } from 'node:os';
+import { join } from 'node:path';
 import { ProposedFeatures, createConnection } from 'vscode-languageserver/node';
+import { WorkerAnalyser } from '../analyser';
 import { formatError } from '../runner';
 import { startServer } from '../server';
 
@@ -15,4 +18,10 @@ process.on('uncaughtException', (error) => {
   connection.console.error(formatError('Loopwise: uncaught exception', error));
 });
 
-startServer(connection);
+// Two workers at most: a huge file being analysed leaves one free for the file being edited.
+const analyser = new WorkerAnalyser({
+  workerPath: join(__dirname, 'analysisWorker.js'),
+  workers: Math.min(2, availableParallelism()),
+  maxHeapMb: 4096,
+});
+startServer(connection, analyser);

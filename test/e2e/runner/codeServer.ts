@@ -41,6 +41,9 @@ const USER_SETTINGS = {
   'chat.commandCenter.enabled': false,
   'editor.hover.delay': 200,
   'files.autoSave': 'off',
+  // No backups of unsaved editors: a test that fails before reverting its edits must not hand a dirty
+  // editor to the next window (the UI scenarios).
+  'files.hotExit': 'off',
   // SVG files open as text (the built-in image preview would take them otherwise).
   'workbench.editorAssociations': { '*.svg': 'default' },
 };

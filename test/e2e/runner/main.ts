@@ -6,7 +6,8 @@
  * 2. opens the workbench with the extension-development payload: VS Code's extension host loads
  *    out/e2e/suite.js, calls its run() and reports through window.codeAutomationExit(code, logs);
  * 3. opens the workbench again (extension loaded, no tests) and drives the UI scenarios;
- * 4. always stops the browser and code-server; on failure keeps screenshots and logs in
+ * 4. always stops the browser and code-server (and checks that nothing of theirs is left running,
+ *    killing what is); on failure keeps screenshots and logs in
  *    test-results/e2e/; prints `e2e: N passed, N failed` and exits non-zero when anything failed.
  *
  * Expects `node scripts/e2e/build.mjs` to have built dist/ and out/e2e/ (npm run test:e2e does).
@@ -17,6 +18,7 @@ import * as path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Browser, Page } from 'playwright-core';
 import { startCodeServer, type CodeServer } from './codeServer';
+import { ensureGroupsEnded, getChildGroups } from './processes';
 import { UI_SCENARIOS, waitForWorkbench } from './ui';
 import { getWorkbenchUrl, launchBrowser, openPage } from './workbench';
 
@@ -147,9 +149,14 @@ async function main(): Promise<number> {
   let server: CodeServer | undefined;
   let browser: Browser | undefined;
   let total: SuiteSummary = { passed: 0, failed: 0 };
+  /** Process groups of code-server and Chromium, checked after stopping so nothing is left running. */
+  const groups = new Set<number>();
+  const noteGroups = (): void => getChildGroups().forEach((g) => groups.add(g));
   const stopAll = async (): Promise<void> => {
     await browser?.close().catch(() => undefined);
     await server?.stop();
+    const left = await ensureGroupsEnded(groups, 10_000);
+    say(left.length === 0 ? 'browser and code-server stopped, nothing left running' : `killed what was left running: ${left.join(', ')}`);
   };
   const onSignal = (signal: NodeJS.Signals): void => {
     say(`${signal}: stopping the browser and code-server`);
@@ -162,8 +169,10 @@ async function main(): Promise<number> {
       installDir: CODE_SERVER_DIR, stateDir: scratch, folder: workspace,
       env: { LOOPWISE_E2E_RESULTS: path.join(scratch, 'suite-results.json') }, startTimeoutMs: START_TIMEOUT_MS,
     });
+    noteGroups();
     say(`code-server ${server.baseUrl} up after ${elapsed()}`);
     browser = await launchBrowser(CHROMIUM);
+    noteGroups();
     const suite = await runInHostSuite(browser, server, workspace, scratch);
     say(`in-host suite done after ${elapsed()}`);
     const ui = await runUiScenarios(browser, server, workspace, scratch);

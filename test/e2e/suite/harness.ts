@@ -62,8 +62,12 @@ function describeError(error: unknown): string {
   return String(error);
 }
 
-/** Runs every registered test in order; `print` receives one line per test and the summary. */
-export async function runAll(print: (line: string) => void): Promise<RunSummary> {
+/**
+ * Runs every registered test in order; `print` receives one line per test and the summary.
+ * `afterFailure` runs after each failed test (a failed test skips its own clean-up, e.g. reverting
+ * an edit, and must not leave that state to the tests after it); its own failure is printed.
+ */
+export async function runAll(print: (line: string) => void, afterFailure?: () => Promise<void>): Promise<RunSummary> {
   const outcomes: TestOutcome[] = [];
   for (const test of tests) {
     const started = Date.now();
@@ -78,6 +82,10 @@ export async function runAll(print: (line: string) => void): Promise<RunSummary>
       outcomes.push({ title: test.title, passed: false, durationMs, error: text });
       print(`  ✗ ${test.title} (${durationMs} ms)`);
       for (const line of text.split('\n')) print(`      ${line}`);
+      if (afterFailure) {
+        await withTimeout(afterFailure, DEFAULT_TEST_TIMEOUT_MS).catch((cleanupError: unknown) =>
+          print(`      (clean-up after the failure failed: ${describeError(cleanupError).split('\n')[0]})`));
+      }
     }
   }
   const passed = outcomes.filter((o) => o.passed).length;

@@ -120,3 +120,13 @@ export async function revertAndClose(document: vscode.TextDocument): Promise<voi
   await vscode.commands.executeCommand('workbench.action.files.revert');
   await vscode.commands.executeCommand('workbench.action.closeActiveEditor');
 }
+
+/** Reverts every unsaved document and closes all editors (after a failed test, so the next starts clean). */
+export async function resetEditors(): Promise<void> {
+  for (const document of vscode.workspace.textDocuments) {
+    if (!document.isDirty || document.isUntitled) continue;
+    await vscode.window.showTextDocument(document);
+    await vscode.commands.executeCommand('workbench.action.files.revert');
+  }
+  await vscode.commands.executeCommand('workbench.action.closeAllEditors');
+}

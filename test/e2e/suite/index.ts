@@ -6,6 +6,7 @@
  */
 import { writeFileSync } from 'node:fs';
 import { runAll } from './harness';
+import { resetEditors } from './helpers';
 import './extension.e2e';
 import './diagnostics.e2e';
 import './hover.e2e';
@@ -18,7 +19,7 @@ import './dxf.e2e';
 export const LINE_MARKER = '[loopwise-e2e] ';
 
 export async function run(): Promise<void> {
-  const summary = await runAll((line) => console.log(LINE_MARKER + line));
+  const summary = await runAll((line) => console.log(LINE_MARKER + line), resetEditors);
   const resultsFile = process.env['LOOPWISE_E2E_RESULTS'];
   if (resultsFile) writeFileSync(resultsFile, JSON.stringify(summary, null, 2));
   if (summary.failed > 0) throw new Error(`${summary.failed} of ${summary.outcomes.length} in-host tests failed`);

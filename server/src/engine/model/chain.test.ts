@@ -29,6 +29,43 @@ describe('chainPieces', () => {
     expect(chainPieces([piece(0, 0, 1, 0), piece(1 + 1.1e-3, 0, 2, 0)], 1e-3).chains).toHaveLength(2);
   });
 
+  for (const seed of [3, 11, 2024]) {
+    it(`clusters ends exactly as an all-pairs distance test does (seeded random ends, seed ${seed})`, () => {
+      // Reference computed another way: O(n²) pairwise distances and a flood fill; ends are placed on a
+      // coarse lattice plus jitter so many pairs sit just inside and just outside the tolerance.
+      let s = seed;
+      const rand = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+      const tol = 0.01;
+      const at = () => Math.floor(rand() * 12) * 0.006 + (rand() - 0.5) * 0.004;
+      const pieces = Array.from({ length: 150 }, () => piece(at(), at(), at(), at()));
+      const xs = pieces.flatMap((p) => [p.x0, p.x1]);
+      const ys = pieces.flatMap((p) => [p.y0, p.y1]);
+      const label = new Array<number>(xs.length).fill(-1);
+      for (let e = 0; e < xs.length; e++) {
+        if (label[e] >= 0) continue;
+        label[e] = e;
+        const stack = [e];
+        while (stack.length > 0) {
+          const a = stack.pop()!;
+          for (let b = 0; b < xs.length; b++) {
+            if (label[b] < 0 && (xs[a] - xs[b]) ** 2 + (ys[a] - ys[b]) ** 2 <= tol * tol) { label[b] = e; stack.push(b); }
+          }
+        }
+      }
+      const clusterSizes = new Map<number, number>();
+      for (const l of label) clusterSizes.set(l, (clusterSizes.get(l) ?? 0) + 1);
+      const expectedBranches = [...clusterSizes.values()].filter((k) => k >= 3).length;
+      expect(chainPieces(pieces, tol).branches).toHaveLength(expectedBranches);
+    });
+  }
+
+  it('treats 5000 ends at one point as one branch point', () => {
+    const pieces = Array.from({ length: 5000 }, (_, i) => piece(0, 0, i, 5));
+    const r = chainPieces(pieces, 1e-3);
+    expect(r.branches).toHaveLength(1);
+    expect(r.branches[0].pieces).toHaveLength(5000);
+  });
+
   it('reports three ends at one point as a branch with all three pieces', () => {
     const r = chainPieces([piece(0, 0, 1, 0), piece(1, 0, 2, 0), piece(1, 0, 1, 1)], 1e-9);
     expect(r.branches).toEqual([{ x: 1, y: 0, pieces: [0, 1, 2] }]);

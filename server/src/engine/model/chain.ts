@@ -1,13 +1,14 @@
 /**
  * Chaining: joins loose open pieces (lines, arcs, open polylines, splines) end to end into contours.
  *
- * Ends closer than a tolerance are clustered (a flatbush index over all ends, one box query per end,
- * union–find over the hits: O(n log n)). A cluster of exactly two ends joins two pieces (or closes one
+ * Ends closer than a tolerance are clustered: a hash grid of square cells of side tolerance, each cell
+ * compared with itself and its adjacent cells, union–find over the hits. Expected O(n) for n ends
+ * (ends at exactly one point are tested once); only many distinct ends crowded into a few adjacent
+ * cells cost more (the pairs between them). A cluster of exactly two ends joins two pieces (or closes one
  * piece on itself); a cluster of three or more ends is a branch point: it is reported, its first two
  * ends (in file order) are joined and the others stay free ends. Pieces are then walked from end to
  * end, reversing those that run the other way. Pieces join only within the same group (a DXF layer).
  */
-import Flatbush from 'flatbush';
 import type { Segment } from '../types';
 
 /** The two ends of one open piece, in its own drawing direction. */
@@ -45,6 +46,9 @@ export interface ChainResult {
   readonly branches: readonly BranchPoint[];
 }
 
+/** Column and row steps to the 4 adjacent cells that come after a cell in (column, row) order. */
+const NEIGHBOUR_STEPS = [0, 1, 1, -1, 1, 0, 1, 1];
+
 function findRoot(parent: Int32Array, i: number): number {
   let r = i;
   while (parent[r] !== r) r = parent[r];
@@ -56,7 +60,7 @@ function findRoot(parent: Int32Array, i: number): number {
   return r;
 }
 
-/** Joins pieces whose ends lie within `tolerance` (same unit as the coordinates) of each other. */
+/** Joins pieces whose ends lie within `tolerance` (> 0, same unit as the coordinates) of each other. */
 export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): ChainResult {
   const n = pieces.length;
   if (n === 0) return { chains: [], branches: [] };
@@ -68,24 +72,84 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
     ex[2 * i] = p.x0; ey[2 * i] = p.y0;
     ex[2 * i + 1] = p.x1; ey[2 * i + 1] = p.y1;
   }
-  const index = new Flatbush(endCount);
-  for (let e = 0; e < endCount; e++) index.add(ex[e], ey[e], ex[e], ey[e]);
-  index.finish();
-
-  // Union–find over ends within the tolerance (Euclidean distance, same group).
   const parent = new Int32Array(endCount);
   for (let e = 0; e < endCount; e++) parent[e] = e;
+  const union = (a: number, b: number) => {
+    const ra = findRoot(parent, a), rb = findRoot(parent, b);
+    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
+  };
+  const groupIds = new Map<string, number>();
+  const group = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const g = pieces[i].group;
+    let id = groupIds.get(g);
+    if (id === undefined) groupIds.set(g, (id = groupIds.size));
+    group[i] = id;
+  }
+
+  // Hash grid of ends (open addressing), one interleaved record per slot: column, row, group, first end.
+  // Cells have the tolerance as side, so ends within the tolerance lie in the same or an adjacent cell.
+  let capacity = 16;
+  while (capacity < 1.5 * endCount) capacity *= 2;
+  const mask = capacity - 1;
+  const cells = new Float64Array(4 * capacity).fill(-1);
+  const nextInCell = new Int32Array(endCount).fill(-1);
+  const usedCells: number[] = [];
+  /** The slot of a cell, or −1 − (the free slot where it would go). */
+  const findCell = (cx: number, cy: number, g: number): number => {
+    // Mix all bits into the low ones the mask keeps (murmur3's finaliser): lattice-aligned ends would crowd a few slots.
+    let h = Math.imul(cx | 0, 0x9e3779b1) ^ Math.imul(cy | 0, 0x85ebca77) ^ Math.imul(g, 0xc2b2ae3d);
+    h = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
+    h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35);
+    h = (h ^ (h >>> 16)) & mask;
+    while (cells[4 * h + 3] >= 0) {
+      if (cells[4 * h] === cx && cells[4 * h + 1] === cy && cells[4 * h + 2] === g) return h;
+      h = (h + 1) & mask;
+    }
+    return -1 - h;
+  };
   const tol2 = tolerance * tolerance;
   for (let e = 0; e < endCount; e++) {
     const x = ex[e], y = ey[e];
-    const group = pieces[e >> 1].group;
-    const hits = index.search(x - tolerance, y - tolerance, x + tolerance, y + tolerance);
-    for (const h of hits) {
-      if (h <= e) continue;
-      const dx = ex[h] - x, dy = ey[h] - y;
-      if (dx * dx + dy * dy > tol2 || pieces[h >> 1].group !== group) continue;
-      const ra = findRoot(parent, e), rb = findRoot(parent, h);
-      if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
+    const cx = Math.floor(x / tolerance), cy = Math.floor(y / tolerance), g = group[e >> 1];
+    const slot = findCell(cx, cy, g);
+    if (slot < 0) {
+      const free = -1 - slot;
+      cells[4 * free] = cx; cells[4 * free + 1] = cy; cells[4 * free + 2] = g; cells[4 * free + 3] = e;
+      usedCells.push(free);
+      continue;
+    }
+    let twin = -1;
+    for (let p = cells[4 * slot + 3]; p >= 0; p = nextInCell[p]) {
+      if (ex[p] === x && ey[p] === y) { twin = p; break; }
+    }
+    if (twin >= 0) {
+      // An end at exactly the same point joins everything its twin joins: it needs no tests of its own,
+      // which keeps thousands of ends at one point linear.
+      union(e, twin);
+    } else {
+      nextInCell[e] = cells[4 * slot + 3];
+      cells[4 * slot + 3] = e;
+    }
+  }
+  // Pairs within one cell, then with the 4 adjacent cells that come after it in (column, row) order.
+  for (const a of usedCells) {
+    const cx = cells[4 * a], cy = cells[4 * a + 1], g = cells[4 * a + 2];
+    for (let p = cells[4 * a + 3]; p >= 0; p = nextInCell[p]) {
+      for (let q = nextInCell[p]; q >= 0; q = nextInCell[q]) {
+        const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
+        if (dx * dx + dy * dy <= tol2) union(p, q);
+      }
+    }
+    for (let k = 0; k < NEIGHBOUR_STEPS.length; k += 2) {
+      const b = findCell(cx + NEIGHBOUR_STEPS[k], cy + NEIGHBOUR_STEPS[k + 1], g);
+      if (b < 0) continue;
+      for (let p = cells[4 * a + 3]; p >= 0; p = nextInCell[p]) {
+        for (let q = cells[4 * b + 3]; q >= 0; q = nextInCell[q]) {
+          const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
+          if (dx * dx + dy * dy <= tol2) union(p, q);
+        }
+      }
     }
   }
 

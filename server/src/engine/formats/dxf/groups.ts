@@ -144,11 +144,16 @@ export class GroupScanner {
     this.problems.push({ checkId: 'parse-error', messageId: 'dxf', span, data: { detail } });
   }
 
-  /** Reads the next line from `pos`; returns [start, textEnd, nextStart] or null at the end. */
-  private readLine(): [number, number, number] | null {
+  /** Start, end of text (blanks trimmed) and the start of the next line, of the line last read. */
+  private lineStart = 0;
+  private lineEnd = 0;
+  private lineNext = 0;
+
+  /** Reads the next line from `pos` into lineStart/lineEnd/lineNext; false at the end of the text. */
+  private readLine(): boolean {
     const text = this.text;
     const start = this.pos;
-    if (start >= text.length) return null;
+    if (start >= text.length) return false;
     let nl = text.indexOf('\n', start);
     let next: number;
     if (nl < 0) {
@@ -161,16 +166,18 @@ export class GroupScanner {
     while (end > start && isBlank(text.charCodeAt(end - 1))) end--;
     this.pos = next;
     this.line++;
-    return [start, end, next];
+    this.lineStart = start;
+    this.lineEnd = end;
+    this.lineNext = next;
+    return true;
   }
 
   /** Advances to the next group pair. Returns false at the end of the text. */
   next(): boolean {
     for (;;) {
       // Skip blank lines between pairs only at the very end of the file (a trailing newline).
-      const codeLine = this.readLine();
-      if (!codeLine) return false;
-      const [cs, ce] = codeLine;
+      if (!this.readLine()) return false;
+      const cs = this.lineStart, ce = this.lineEnd;
       const lineNo = this.line - 1;
       if (ce === cs && this.restIsBlank()) return false;
       const code = parseCode(this.text, cs, ce);
@@ -180,8 +187,7 @@ export class GroupScanner {
         this.resync();
         continue;
       }
-      const valueLine = this.readLine();
-      if (!valueLine) {
+      if (!this.readLine()) {
         this.report({ start: cs, end: ce }, `group code ${code} on line ${lineNo + 1} has no value line (the file is truncated)`);
         return false;
       }
@@ -189,9 +195,9 @@ export class GroupScanner {
       this.codeStart = cs;
       this.codeEnd = ce;
       this.codeLine = lineNo;
-      this.valueStart = valueLine[0];
-      this.valueEnd = valueLine[1];
-      this.pairEnd = valueLine[2];
+      this.valueStart = this.lineStart;
+      this.valueEnd = this.lineEnd;
+      this.pairEnd = this.lineNext;
       this.number = code < KIND_TABLE_SIZE && KIND_TABLE[code] !== 0 ? this.convert(KIND_TABLE[code] === 2) : Number.NaN;
       return true;
     }
@@ -199,8 +205,9 @@ export class GroupScanner {
 
   private convert(integer: boolean): number {
     const raw = this.text.slice(this.valueStart, this.valueEnd);
-    const v = Number(raw);
-    if (!Number.isFinite(v) || raw.trim() === '') {
+    // Number('') is 0: an empty value (trailing blanks are already trimmed) is not a number.
+    const v = this.valueEnd > this.valueStart ? Number(raw) : Number.NaN;
+    if (!Number.isFinite(v)) {
       this.report({ start: this.valueStart, end: this.valueEnd },
         `group ${this.code} on line ${this.codeLine + 1} needs a number, found "${raw.trim()}"`);
       return Number.NaN;
@@ -230,17 +237,16 @@ export class GroupScanner {
     for (;;) {
       const before = this.pos;
       const beforeLine = this.line;
-      const l = this.readLine();
-      if (!l) return;
-      if (parseCode(this.text, l[0], l[1]) !== 0) continue;
-      const next = this.readLine();
-      if (!next) return;
-      if (/^[A-Z_$][A-Z0-9_$]*$/.test(this.text.slice(next[0], next[1]).trim())) {
+      if (!this.readLine()) return;
+      if (parseCode(this.text, this.lineStart, this.lineEnd) !== 0) continue;
+      const afterCode = this.lineNext;
+      if (!this.readLine()) return;
+      if (/^[A-Z_$][A-Z0-9_$]*$/.test(this.text.slice(this.lineStart, this.lineEnd).trim())) {
         this.pos = before;
         this.line = beforeLine;
         return;
       }
-      this.pos = l[2];
+      this.pos = afterCode;
       this.line = beforeLine + 1;
     }
   }

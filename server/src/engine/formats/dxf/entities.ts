@@ -129,6 +129,32 @@ function withBase<const T extends object>(b: EntityBase, extra: T): EntityBase &
   return Object.assign(o, extra);
 }
 
+/** Bit view of one double, for hashing converted numbers. */
+const NUMBER_BITS = new Float64Array(1);
+const NUMBER_WORDS = new Int32Array(NUMBER_BITS.buffer);
+
+/**
+ * Continues hash `h` with the 64 bits of a number (equal values, equal hashes) by two murmur3 block
+ * steps: the rotations carry the high bits (all that small integers set) into the low ones.
+ */
+function hashNumber(h: number, v: number): number {
+  NUMBER_BITS[0] = v;
+  for (let w = 0; w < 2; w++) {
+    let k = Math.imul(NUMBER_WORDS[w], 0xcc9e2d51);
+    k = Math.imul((k << 15) | (k >>> 17), 0x1b873593);
+    h ^= k;
+    h = (Math.imul((h << 13) | (h >>> 19), 5) + 0xe6546b64) | 0;
+  }
+  return h >>> 0;
+}
+
+/** murmur3's finaliser: every input bit reaches the low bits that a power-of-two table keeps. */
+function mixHash(h: number): number {
+  h = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
+  h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35);
+  return (h ^ (h >>> 16)) >>> 0;
+}
+
 /** 32-bit FNV-1a over a string range, continuing from `h`. */
 function hashRange(h: number, text: string, start: number, end: number): number {
   for (let i = start; i < end; i++) {
@@ -241,6 +267,19 @@ class DocumentBuilder {
     return v === undefined || Number.isNaN(v) ? fallback : v;
   }
 
+  /** The last layer name read: entities mostly come in runs on one layer, so its string is reused. */
+  private lastLayer = '0';
+
+  private getLayerName(i: number): string {
+    const text = this.text;
+    let vs = this.buf.vs[i];
+    const ve = this.buf.ve[i];
+    while (vs < ve && (text.charCodeAt(vs) === 32 || text.charCodeAt(vs) === 9)) vs++;
+    const last = this.lastLayer;
+    if (ve - vs !== last.length || !text.startsWith(last, vs)) this.lastLayer = text.slice(vs, ve);
+    return this.lastLayer;
+  }
+
   private str(i: number): string {
     return this.text.slice(this.buf.vs[i], this.buf.ve[i]).trim();
   }
@@ -259,7 +298,7 @@ class DocumentBuilder {
     let hash = hashRange(0x811c9dc5, type, 0, type.length);
     for (let i = 0; i < b.length; i++) {
       const c = b.codes[i];
-      if (c === 8) layer = this.str(i);
+      if (c === 8) layer = this.getLayerName(i);
       else if (c === 5) handle = this.str(i);
       else if (c === 67) paperSpace = b.nums[i] === 1;
       else if (c === 210) nx = this.num(i, 0);
@@ -267,9 +306,12 @@ class DocumentBuilder {
       else if (c === 230) nz = this.num(i, 1);
       if (!isIdentityCode(c)) {
         hash = Math.imul(hash ^ c, 0x01000193) >>> 0;
-        hash = hashRange(hash, text, b.vs[i], b.ve[i]);
+        // Numbers hash by value (equal text gives equal values); the exact text is compared on a hit.
+        const v = b.nums[i];
+        hash = Number.isNaN(v) ? hashRange(hash, text, b.vs[i], b.ve[i]) : hashNumber(hash, v);
       }
     }
+    hash = mixHash(hash);
     const base = { type, span, line, layer, handle, paperSpace, nx, ny, nz, hash };
 
     // Block definitions and the POLYLINE … VERTEX … SEQEND sequence.
@@ -355,7 +397,11 @@ class DocumentBuilder {
             case 31: z1 = this.num(i, 0); break;
           }
         }
-        return withBase(base, { kind: 'line', x0, y0, z0, x1, y1, z1, ref0: r0, ref1: r1 });
+        // Written out (no withBase) for the most common entity: one object of a fixed shape.
+        return {
+          type: base.type, span: base.span, line: base.line, layer: base.layer, handle: base.handle, paperSpace: base.paperSpace,
+          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'line', x0, y0, z0, x1, y1, z1, ref0: r0, ref1: r1,
+        };
       }
       case 'CIRCLE':
       case 'ARC': {
@@ -370,9 +416,11 @@ class DocumentBuilder {
             case 51: a1 = this.num(i, Number.NaN); break;
           }
         }
-        return type === 'CIRCLE'
-          ? withBase(base, { kind: 'circle', cx, cy, cz, r })
-          : withBase(base, { kind: 'arc', cx, cy, cz, r, startDeg: a0, endDeg: a1 });
+        if (type === 'CIRCLE') return withBase(base, { kind: 'circle', cx, cy, cz, r });
+        return {
+          type: base.type, span: base.span, line: base.line, layer: base.layer, handle: base.handle, paperSpace: base.paperSpace,
+          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'arc', cx, cy, cz, r, startDeg: a0, endDeg: a1,
+        };
       }
       case 'ELLIPSE': {
         let cx = 0, cy = 0, cz = 0, mx = 0, my = 0, mz = 0, ratio = 1, t0 = 0, t1 = 2 * Math.PI;

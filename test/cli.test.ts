@@ -232,6 +232,27 @@ describe('loopwise check on the other samples', () => {
   });
 });
 
+describe('loopwise check on samples/fernhollow-lamp-panel-loose.dxf (DXF, layers)', () => {
+  it('lists the TEXT on layer ENGRAVE as not analysed by default', async () => {
+    const f = await report('fernhollow-lamp-panel-loose.dxf');
+    expect(f.problems.filter((p) => p.id === 'not-analysed').map((p) => p.message)).toEqual(['Not analysed: 1 TEXT entities (not cutting outlines).']);
+  });
+
+  it('skips a layer named by --ignore-layer, in any case, and lists the layer instead', async () => {
+    const f = await report('fernhollow-lamp-panel-loose.dxf', '--ignore-layer', 'engrave');
+    expect(f.problems.filter((p) => p.id === 'not-analysed').map((p) => p.message)).toEqual([
+      'Layer ENGRAVE is ignored by the settings: its 1 entities are not analysed.',
+    ]);
+    expect(f.contours).toHaveLength(2); // the chained edge and the window, as without the flag
+  });
+
+  it('takes --ignore-layer more than once', async () => {
+    const f = await report('fernhollow-lamp-panel-loose.dxf', '--ignore-layer', 'ENGRAVE', '--ignore-layer', 'cut');
+    expect(f.contours).toEqual([]);
+    expect(f.problems.filter((p) => p.id === 'not-analysed')).toHaveLength(2);
+  });
+});
+
 describe('loopwise usage and exit codes', () => {
   it('exits 2 with the usage text for a missing command', async () => {
     const r = await cli();
@@ -251,6 +272,7 @@ describe('loopwise usage and exit codes', () => {
     expect((await cli('check', '--near-closed-tolerance', 'wide', samples)).code).toBe(2);
     expect((await cli('check', '--severity', 'no-such-check=off', samples)).code).toBe(2);
     expect((await cli('check', '--assume-unit', 'furlong', samples)).code).toBe(2);
+    expect((await cli('check', '--ignore-layer', ' ', samples)).code).toBe(2);
   });
 
   it('prints every problem as file:line:column in the text report', async () => {

@@ -26,14 +26,16 @@ const SEVERITIES: readonly SeveritySetting[] = ['off', 'info', 'warning', 'error
 
 export const USAGE = `Usage: loopwise check [options] <files or folders…>
 
-Measures every contour of SVG files and reports problems for cutting.
-Folders are searched recursively for .svg files.
+Measures every contour of SVG and DXF files and reports problems for cutting.
+Folders are searched recursively for .svg and .dxf files.
 
 Options:
   --json                        print the machine-readable JSON report
   --near-closed-tolerance <mm>  largest gap reported as near-closed (default 0.1)
   --assume-unit <unit>          unit for files without a physical size:
                                 auto (px for SVG, mm for DXF), mm, cm, in, pt, px
+  --ignore-layer <name>         skip the entities of a DXF layer (engraving, notes, …);
+                                repeatable, case-insensitive
   --severity <id>=<level>       change a problem's severity (off, info, warning, error);
                                 repeatable. Ids: ${checks.map((c) => c.id).join(', ')}
   -h, --help                    show this help
@@ -47,6 +49,7 @@ class UsageError extends Error {}
 function parseOptions(values: {
   'near-closed-tolerance'?: string | undefined;
   'assume-unit'?: string | undefined;
+  'ignore-layer'?: string[] | undefined;
   severity?: string[] | undefined;
 }): Partial<AnalysisOptions> {
   const options: { -readonly [K in keyof AnalysisOptions]?: AnalysisOptions[K] } = {};
@@ -63,6 +66,11 @@ function parseOptions(values: {
     if (!UNITS.includes(unit as AssumedUnit)) throw new UsageError(`--assume-unit must be one of ${UNITS.join(', ')}, got '${unit}'`);
     options.assumedUnit = unit as AssumedUnit;
   }
+  const layers = values['ignore-layer'] ?? [];
+  for (const name of layers) {
+    if (name.trim() === '') throw new UsageError('--ignore-layer needs a layer name');
+  }
+  options.ignoredLayers = layers;
   const severity: Record<string, SeveritySetting> = {};
   for (const item of values.severity ?? []) {
     const [id, level] = item.split('=');
@@ -92,7 +100,7 @@ async function collectFiles(paths: readonly string[], io: CliIo, reports: FileRe
     } else if (getFormatForPath(path) !== undefined) {
       files.push(path);
     } else {
-      reports.push({ path, error: 'not a file Loopwise reads (.svg)' });
+      reports.push({ path, error: 'not a file Loopwise reads (.svg, .dxf)' });
     }
   }
   return files;
@@ -109,6 +117,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
         json: { type: 'boolean' },
         'near-closed-tolerance': { type: 'string' },
         'assume-unit': { type: 'string' },
+        'ignore-layer': { type: 'string', multiple: true },
         severity: { type: 'string', multiple: true },
         help: { type: 'boolean', short: 'h' },
         version: { type: 'boolean', short: 'v' },
@@ -158,7 +167,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
   io.stdout(values.json ? renderJson(reports) : renderText(reports));
   if (reports.some((r) => 'error' in r)) return EXIT_USAGE;
   if (files.length === 0) {
-    io.stderr('loopwise: no .svg files found\n');
+    io.stderr('loopwise: no .svg or .dxf files found\n');
     return EXIT_USAGE;
   }
   const hasErrors = reports.some((r) => 'result' in r && r.result.findings.some((f) => f.severity === 'error'));

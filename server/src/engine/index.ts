@@ -25,6 +25,7 @@ export { formatNumber } from './format';
 export const DEFAULT_OPTIONS: AnalysisOptions = {
   nearClosedToleranceMm: DEFAULT_NEAR_CLOSED_TOLERANCE_MM,
   assumedUnit: 'auto',
+  ignoredLayers: [],
   severity: {},
 };
 
@@ -49,7 +50,11 @@ function read(text: string, format: FileFormat, options: AnalysisOptions): ReadR
     case 'svg':
       return readSvg(text, { assumedUnit: options.assumedUnit });
     case 'dxf':
-      return readDxf(text, { assumedUnit: options.assumedUnit });
+      return readDxf(text, {
+        assumedUnit: options.assumedUnit,
+        ignoredLayers: options.ignoredLayers,
+        nearClosedToleranceMm: options.nearClosedToleranceMm,
+      });
   }
 }
 

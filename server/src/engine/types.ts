@@ -216,6 +216,8 @@ export interface AnalysisOptions {
   readonly nearClosedToleranceMm: number;
   /** Unit assumed when a file declares none; `auto` = CSS px for SVG, mm for DXF. */
   readonly assumedUnit: AssumedUnit;
+  /** DXF layers whose entities are skipped and listed by `not-analysed` (case-insensitive, as DXF layer names are). */
+  readonly ignoredLayers: readonly string[];
   /** Severity overrides per check id. */
   readonly severity: Readonly<Record<string, SeveritySetting>>;
   /** Polled between phases and inside long loops; when it returns true the analysis throws `AnalysisCancelled`. */

@@ -8,13 +8,14 @@ import { DEFAULT_OPTIONS } from '../engine/index';
 import type { AnalysisOptions, AssumedUnit, SeveritySetting } from '../engine/index';
 
 /** The part of the analysis options a user controls. */
-export type LoopwiseSettings = Pick<AnalysisOptions, 'nearClosedToleranceMm' | 'assumedUnit' | 'severity'>;
+export type LoopwiseSettings = Pick<AnalysisOptions, 'nearClosedToleranceMm' | 'assumedUnit' | 'ignoredLayers' | 'severity'>;
 
 export const SETTINGS_SECTION = 'loopwise';
 
 export const DEFAULT_SETTINGS: LoopwiseSettings = {
   nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm,
   assumedUnit: DEFAULT_OPTIONS.assumedUnit,
+  ignoredLayers: DEFAULT_OPTIONS.ignoredLayers,
   severity: DEFAULT_OPTIONS.severity,
 };
 
@@ -45,6 +46,10 @@ export function toSettings(raw: unknown): LoopwiseSettings {
         ? tolerance
         : DEFAULT_SETTINGS.nearClosedToleranceMm,
     assumedUnit: ASSUMED_UNITS.includes(unit as AssumedUnit) ? (unit as AssumedUnit) : DEFAULT_SETTINGS.assumedUnit,
+    // Layer names: non-empty strings; anything else in the list is dropped.
+    ignoredLayers: Array.isArray(raw.ignoredLayers)
+      ? raw.ignoredLayers.filter((name): name is string => typeof name === 'string' && name.trim() !== '')
+      : DEFAULT_SETTINGS.ignoredLayers,
     severity,
   };
 }

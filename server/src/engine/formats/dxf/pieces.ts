@@ -9,11 +9,6 @@ import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointRef, PolyVertex } f
 import { getSplineSegments } from './spline';
 import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine, mapSegment } from './transform';
 
-/** An end of a piece that a fix may move: the value lines of its coordinates, in file units. */
-export interface EditablePoint {
-  readonly ref: PointRef;
-}
-
 /** What a single-polyline contour needs for its close fix. */
 export interface PolylineFixInfo {
   readonly kind: 'lwpolyline' | 'polyline';
@@ -40,8 +35,9 @@ export interface Piece {
   readonly layer: string;
   readonly startSpan: SourceSpan;
   readonly endSpan: SourceSpan;
-  readonly startEdit?: EditablePoint;
-  readonly endEdit?: EditablePoint;
+  /** The value lines of the start and end points' coordinates (file units), when a fix may move them. */
+  readonly startEdit?: PointRef;
+  readonly endEdit?: PointRef;
   readonly polyline?: PolylineFixInfo;
   /** An LWPOLYLINE or POLYLINE without its closed flag: its ends meeting is still an open contour. */
   readonly unflaggedPolyline: boolean;
@@ -53,6 +49,8 @@ export interface PieceNotes {
   readonly notAnalysed: Map<string, SourceSpan[]>;
   /** Entities skipped because their layer is frozen or off: layer name → count. */
   readonly hiddenLayers: Map<string, number>;
+  /** Entities skipped because the settings ignore their layer: layer name → count and the first entity (or INSERT). */
+  readonly ignoredLayers: Map<string, { count: number; span: SourceSpan }>;
   /** Paper-space entities skipped. */
   readonly paperSpace: SourceSpan[];
   /** Out-of-plane entities: span, type, detail. */
@@ -103,15 +101,25 @@ interface Frame {
 
 export class PieceBuilder {
   readonly pieces: Piece[] = [];
-  readonly notes: PieceNotes = { notAnalysed: new Map(), hiddenLayers: new Map(), paperSpace: [], outOfPlane: [], malformed: [] };
+  readonly notes: PieceNotes = { notAnalysed: new Map(), hiddenLayers: new Map(), ignoredLayers: new Map(), paperSpace: [], outOfPlane: [], malformed: [] };
   private instances = 0;
   private instanceCapReported = false;
+  /** File units → mm, the map of every top-level entity. */
+  private readonly topMatrix: Affine;
+  /** Ignored layer names, upper case (DXF layer names are case-insensitive). */
+  private readonly ignored: ReadonlySet<string>;
+  /** Per layer name as written: visible, hidden (frozen or off) or ignored. */
+  private readonly layerState = new Map<string, 'visible' | 'hidden' | 'ignored'>();
 
   constructor(
     private readonly blocks: ReadonlyMap<string, BlockDef>,
     private readonly layers: ReadonlyMap<string, LayerInfo>,
-    private readonly mmPerUnit: number,
-  ) {}
+    mmPerUnit: number,
+    ignoredLayers: readonly string[] = [],
+  ) {
+    this.topMatrix = scaling(mmPerUnit, mmPerUnit);
+    this.ignored = new Set(ignoredLayers.map((name) => name.trim().toUpperCase()));
+  }
 
   /** Builds the pieces of one top-level entity of the ENTITIES section. */
   addTopLevel(e: DxfEntity, order: number): void {
@@ -119,9 +127,9 @@ export class PieceBuilder {
       this.notes.paperSpace.push(e.span);
       return;
     }
-    if (this.skipHidden(e.layer)) return;
+    if (this.skipLayer(e.layer, e.span)) return;
     this.addEntity(e, e.layer, {
-      m: scaling(this.mmPerUnit, this.mmPerUnit),
+      m: this.topMatrix,
       top: { span: e.span, order, type: e.type, handle: e.handle },
       editable: true,
       depth: 0,
@@ -129,9 +137,21 @@ export class PieceBuilder {
     });
   }
 
-  private skipHidden(layer: string): boolean {
-    if (!isLayerHidden(this.layers.get(layer))) return false;
-    this.notes.hiddenLayers.set(layer, (this.notes.hiddenLayers.get(layer) ?? 0) + 1);
+  /** True (and noted) when entities on `layer` are skipped; `span` is the top-level entity or INSERT. */
+  private skipLayer(layer: string, span: SourceSpan): boolean {
+    let state = this.layerState.get(layer);
+    if (state === undefined) {
+      state = this.ignored.has(layer.toUpperCase()) ? 'ignored' : isLayerHidden(this.layers.get(layer)) ? 'hidden' : 'visible';
+      this.layerState.set(layer, state);
+    }
+    if (state === 'visible') return false;
+    if (state === 'hidden') {
+      this.notes.hiddenLayers.set(layer, (this.notes.hiddenLayers.get(layer) ?? 0) + 1);
+    } else {
+      const seen = this.notes.ignoredLayers.get(layer);
+      if (seen) seen.count++;
+      else this.notes.ignoredLayers.set(layer, { count: 1, span });
+    }
     return true;
   }
 
@@ -191,7 +211,7 @@ export class PieceBuilder {
         if (e.z0 !== e.z1) return this.outOfPlane(f, e, `its ends lie at different heights (z ${e.z0} and ${e.z1})`);
         // LINE points are WCS (§6.4): the extrusion does not move them.
         return this.push(f, e, layer, [{ kind: 'line', x0: e.x0, y0: e.y0, x1: e.x1, y1: e.y1, span: e.span }], false,
-          { startEdit: { ref: e.ref0 }, endEdit: { ref: e.ref1 } });
+          { startEdit: e.ref0, endEdit: e.ref1 });
       }
       case 'circle':
       case 'arc': {
@@ -270,7 +290,7 @@ export class PieceBuilder {
         if (r.capped) this.malformed(f, e, `SPLINE could not be approximated within ${SPLINE_FIT_TOLERANCE_MM} mm; its figures are less accurate`);
         const closed = (e.flags & 1) !== 0 && samePoint(r.segments[0], r.segments[r.segments.length - 1]);
         // A clamped spline starts and ends at its first and last control points, so those can be moved.
-        return this.push(f, e, layer, r.segments, closed, r.clamped ? { startEdit: e.firstRef && { ref: e.firstRef }, endEdit: e.lastRef && { ref: e.lastRef } } : {});
+        return this.push(f, e, layer, r.segments, closed, r.clamped ? { startEdit: e.firstRef, endEdit: e.lastRef } : {});
       }
       case 'insert':
         return this.addInsert(e, layer, f);
@@ -299,8 +319,8 @@ export class PieceBuilder {
     this.push(g, e, layer, segments, closed, {
       startSpan: vertices[0].span,
       endSpan: vertices[n - 1].span,
-      startEdit: { ref: vertices[0].ref },
-      endEdit: { ref: vertices[n - 1].ref },
+      startEdit: vertices[0].ref,
+      endEdit: vertices[n - 1].ref,
       polyline: closed ? undefined : fix,
       unflaggedPolyline: !closed,
     });
@@ -338,7 +358,7 @@ export class PieceBuilder {
         for (const be of block.entities) {
           // Entities on layer 0 inside a block take the layer of the INSERT.
           const beLayer = be.layer === '0' ? layer : be.layer;
-          if (be.paperSpace || this.skipHidden(beLayer)) continue;
+          if (be.paperSpace || this.skipLayer(beLayer, f.top.span)) continue;
           this.addEntity(be, beLayer, frame);
         }
       }

@@ -8,7 +8,7 @@
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
-import { chainPieces, reverseSegments } from '../../model/chain';
+import { chainPieces, reverseSegments, type ChainPiece } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { parseDxfDocument, type DxfEntity, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -17,6 +17,13 @@ import { getDxfUnits } from './units';
 
 export interface ReadDxfOptions {
   readonly assumedUnit: AssumedUnit;
+  /** Layers whose entities are skipped and listed (names compared case-insensitively, as DXF does). */
+  readonly ignoredLayers?: readonly string[];
+  /**
+   * Close fixes are built only for contours whose ends are at most this far apart (mm): farther
+   * ends are an open contour, which no fix closes. Default: every open contour gets its fix.
+   */
+  readonly nearClosedToleranceMm?: number;
 }
 
 /** Related places listed per finding at most (the count is in the message). */
@@ -36,12 +43,21 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
   problems.push(...doc.problems);
   const units = getDxfUnits(doc.insunits, doc.headerSpan, options.assumedUnit, problems);
 
-  const builder = new PieceBuilder(doc.blocks, doc.layers, units.mmPerUnit);
-  const seen = new Map<number, DxfEntity[]>();
-  doc.entities.forEach((e, order) => {
+  const builder = new PieceBuilder(doc.blocks, doc.layers, units.mmPerUnit, options.ignoredLayers);
+  // Exact duplicates: an open-addressing table from hash to the last entity with that hash; entities
+  // with equal hashes are listed through `sameHash` (index of the previous one, −1 for none).
+  const entities = doc.entities;
+  let capacity = 16;
+  while (capacity < 2 * entities.length) capacity *= 2;
+  const lastWithHash = new Int32Array(capacity).fill(-1);
+  const sameHash = new Int32Array(entities.length);
+  for (let order = 0; order < entities.length; order++) {
+    const e = entities[order];
     if (e.kind !== 'other' && !e.paperSpace) {
-      const same = seen.get(e.hash);
-      const first = same?.find((o) => o.type === e.type && haveSameGroups(text, o.span, e.span));
+      let slot = e.hash & (capacity - 1);
+      while (lastWithHash[slot] >= 0 && entities[lastWithHash[slot]].hash !== e.hash) slot = (slot + 1) & (capacity - 1);
+      const previous = lastWithHash[slot];
+      const first = previous < 0 ? undefined : findDuplicate(text, entities, sameHash, previous, e);
       if (first) {
         problems.push({
           checkId: 'duplicate-entity', messageId: 'duplicate', span: e.span,
@@ -49,16 +65,26 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
           related: [{ span: first.span, message: `The first ${e.type}` }],
           fixes: [{ title: `Remove the duplicate ${e.type}`, edits: [{ span: e.span, newText: '' }] }],
         });
-        return;
+        continue;
       }
-      if (same) same.push(e);
-      else seen.set(e.hash, [e]);
+      sameHash[order] = previous;
+      lastWithHash[slot] = order;
     }
     builder.addTopLevel(e, order);
-  });
+  }
   reportNotes(builder, doc.layers, problems);
-  const contours = buildContours(text, builder.pieces, units, doc.eol, problems);
+  const contours = buildContours(text, builder.pieces, units, doc.eol, options.nearClosedToleranceMm ?? Infinity, problems);
   return { format: 'dxf', yAxis: 'up', units, contours, problems };
+}
+
+/** The earliest entity kept so far with the same type and groups as `e`, walking the same-hash list from `i`. */
+function findDuplicate(text: string, entities: readonly DxfEntity[], sameHash: Int32Array, i: number, e: DxfEntity): DxfEntity | undefined {
+  let found: DxfEntity | undefined;
+  for (; i >= 0; i = sameHash[i]) {
+    const o = entities[i];
+    if (o.type === e.type && haveSameGroups(text, o.span, e.span)) found = o;
+  }
+  return found;
 }
 
 /** The groups of an entity's text, except handles and owners, as `code value` strings. */
@@ -95,6 +121,9 @@ function reportNotes(builder: PieceBuilder, layers: ReturnType<typeof parseDxfDo
     const state = frozen && off ? 'frozen and off' : frozen ? 'frozen' : 'off';
     problems.push({ checkId: 'not-analysed', messageId: 'hiddenLayer', span: layer.span, data: { layer: name, state, count } });
   }
+  for (const [layer, { count, span }] of notes.ignoredLayers) {
+    problems.push({ checkId: 'not-analysed', messageId: 'ignoredLayer', span: layers.get(layer)?.span ?? span, data: { layer, count } });
+  }
   if (notes.paperSpace.length > 0) {
     problems.push({
       checkId: 'not-analysed', messageId: 'paperSpace', span: notes.paperSpace[0],
@@ -127,28 +156,32 @@ function getValueText(text: string, start: number, end: number): string {
   return text.slice(start, end).trim();
 }
 
+/** A contour before numbering: contours are numbered in the order of their first entity. */
 interface Draft {
   readonly order: number;
-  readonly contour: Omit<Contour, 'index'>;
+  readonly piece: Piece;
+  readonly segments: readonly Segment[];
+  readonly closed: boolean;
+  readonly startSpan: SourceSpan;
+  readonly endSpan: SourceSpan;
+  readonly closeFix?: Fix;
 }
 
-function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo, eol: string, problems: RawFinding[]): Contour[] {
+function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo, eol: string, fixMaxGapMm: number, problems: RawFinding[]): Contour[] {
   const drafts: Draft[] = [];
   const open: number[] = [];
-  pieces.forEach((p, i) => {
-    if (p.segments.length === 0) return;
+  const inputs: ChainPiece[] = [];
+  for (let i = 0; i < pieces.length; i++) {
+    const p = pieces[i];
+    if (p.segments.length === 0) continue;
     if (p.closed) {
-      drafts.push({ order: p.order, contour: makeContour(p, p.segments, true, p.startSpan, p.endSpan) });
+      drafts.push({ order: p.order, piece: p, segments: p.segments, closed: true, startSpan: p.startSpan, endSpan: p.endSpan });
     } else {
       open.push(i);
+      const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
+      inputs.push({ x0: p.segments[0].x0, y0: p.segments[0].y0, x1, y1, group: p.layer });
     }
-  });
-
-  const inputs = open.map((i) => {
-    const p = pieces[i];
-    const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
-    return { x0: p.segments[0].x0, y0: p.segments[0].y0, x1, y1, group: p.layer };
-  });
+  }
   const { chains, branches } = chainPieces(inputs, CHAIN_TOLERANCE_MM);
 
   for (const br of branches) {
@@ -162,39 +195,47 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
 
   for (const chain of chains) {
     const links = chain.links.map((l) => ({ piece: pieces[open[l.piece]], reversed: l.reversed }));
-    const segments: Segment[] = [];
-    for (const l of links) {
-      if (l.reversed) segments.push(...reverseSegments(l.piece.segments));
-      else for (const s of l.piece.segments) segments.push(s);
-    }
     const first = links[0];
+    let segments: Segment[];
+    let order = first.piece.order;
+    if (links.length === 1 && !first.reversed) {
+      segments = first.piece.segments;
+    } else {
+      segments = [];
+      for (const l of links) {
+        if (l.reversed) segments.push(...reverseSegments(l.piece.segments));
+        else for (const s of l.piece.segments) segments.push(s);
+        if (l.piece.order < order) order = l.piece.order;
+      }
+    }
     const last = links[links.length - 1];
     const startSpan = first.reversed ? first.piece.endSpan : first.piece.startSpan;
     const endSpan = last.reversed ? last.piece.startSpan : last.piece.endSpan;
     const single = links.length === 1 && first.piece.unflaggedPolyline;
     const closed = chain.closed && !single;
     let closeFix: Fix | undefined;
-    if (!closed) {
+    if (!closed && getGapMm(segments) <= fixMaxGapMm) {
       closeFix = single
         ? getPolylineCloseFix(text, first.piece, segments, eol)
         : getMoveEndFix(text, links, segments, units);
     }
-    const order = Math.min(...links.map((l) => l.piece.order));
-    drafts.push({ order, contour: makeContour(first.piece, segments, closed, startSpan, endSpan, closeFix) });
+    drafts.push({ order, piece: first.piece, segments, closed, startSpan, endSpan, closeFix });
   }
 
   drafts.sort((a, b) => a.order - b.order);
-  return drafts.map((d, index) => ({ index, ...d.contour }));
-}
-
-function makeContour(p: Piece, segments: Segment[], closed: boolean, startSpan: SourceSpan, endSpan: SourceSpan, closeFix?: Fix): Omit<Contour, 'index'> {
-  return {
-    segments, closed,
-    startX: segments[0].x0, startY: segments[0].y0,
-    span: p.span, startSpan, endSpan, elementSpan: p.span,
-    element: p.element, id: p.handle, layer: p.layer,
-    ...(closeFix ? { closeFix } : {}),
-  };
+  const contours: Contour[] = new Array<Contour>(drafts.length);
+  for (let index = 0; index < drafts.length; index++) {
+    const d = drafts[index];
+    const p = d.piece;
+    const c: Contour = {
+      index, segments: d.segments, closed: d.closed,
+      startX: d.segments[0].x0, startY: d.segments[0].y0,
+      span: p.span, startSpan: d.startSpan, endSpan: d.endSpan, elementSpan: p.span,
+      element: p.element, id: p.handle, layer: p.layer,
+    };
+    contours[index] = d.closeFix ? { ...c, closeFix: d.closeFix } : c;
+  }
+  return contours;
 }
 
 function getGapMm(segments: readonly Segment[]): number {
@@ -247,11 +288,11 @@ function getMoveEndFix(text: string, links: { piece: Piece; reversed: boolean }[
   let to: [string, string];
   let element: string;
   if (endRef) {
-    moved = endRef.ref;
-    to = target(startRef?.ref, sx, sy);
+    moved = endRef;
+    to = target(startRef, sx, sy);
     element = last.piece.element;
   } else if (startRef) {
-    moved = startRef.ref;
+    moved = startRef;
     to = target(undefined, ex, ey);
     element = first.piece.element;
   } else {

@@ -16,6 +16,7 @@ import type {
   Finding,
   RawFinding,
   ReadResult,
+  SourceSpan,
 } from './types';
 
 export type * from './types';
@@ -97,16 +98,20 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   return { format, yAxis: readResult.yAxis, units: readResult.units, contours, findings };
 }
 
-/** The innermost contour whose text contains `offset` (for hovers), or undefined. */
+/**
+ * The innermost contour whose text contains `offset` (for hovers), or undefined. A DXF contour chained
+ * from loose entities is found on any of its entities: its span is only its first one.
+ */
 export function getContourAt(result: AnalysisResult, offset: number): ContourResult | undefined {
+  const holds = (s: SourceSpan) => offset >= s.start && offset < s.end;
   let best: ContourResult | undefined;
   for (const c of result.contours) {
-    const { span, elementSpan } = c.contour;
-    const inside = (offset >= span.start && offset < span.end) || (offset >= elementSpan.start && offset < elementSpan.end);
-    if (!inside) continue;
+    const { span, elementSpan, segments } = c.contour;
+    const own = holds(span) || (result.format === 'dxf' && segments.some((s) => holds(s.span)));
+    if (!own && !holds(elementSpan)) continue;
     const size = span.end - span.start;
     // Prefer the subpath whose own span holds the offset, then the smallest.
-    if (!best || (offset >= span.start && offset < span.end && size < best.contour.span.end - best.contour.span.start)) best = c;
+    if (!best || (own && size < best.contour.span.end - best.contour.span.start)) best = c;
   }
   return best;
 }

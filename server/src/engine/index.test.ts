@@ -1,0 +1,23 @@
+import { describe, expect, it } from 'vitest';
+import { dxf, line } from '../../../test/support/dxfText';
+import { analyze, getContourAt } from './index';
+
+describe('getContourAt', () => {
+  it('finds a DXF contour chained from loose entities on every one of its entities, not only the first', () => {
+    // Two separate chains (common practice, no source): a square of 4 LINEs and a triangle of 3, interleaved in the file.
+    const square = [line(0, 0, 10, 0), line(10, 0, 10, 10), line(10, 10, 0, 10), line(0, 10, 0, 0)];
+    const triangle = [line(20, 0, 30, 0), line(30, 0, 20, 10), line(20, 10, 20, 0)];
+    const entities = [square[0], triangle[0], square[1], triangle[1], square[2], triangle[2], square[3]];
+    const text = dxf(...entities);
+    const result = analyze(text, 'dxf');
+    expect(result.contours).toHaveLength(2);
+    let from = 0;
+    entities.forEach((e, i) => {
+      const at = text.indexOf(e.join('\n'), from);
+      from = at + 1;
+      const found = getContourAt(result, at + 3);
+      expect(found?.contour.index, `entity ${i}`).toBe(square.includes(e) ? 0 : 1);
+    });
+    expect(getContourAt(result, text.indexOf('ENTITIES'))).toBeUndefined();
+  });
+});

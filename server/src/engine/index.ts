@@ -6,6 +6,7 @@ import { checks, getCheck } from './checks/index';
 import { fillTemplate } from './format';
 import { readDxf } from './formats/dxf/readDxf';
 import { readSvg } from './formats/svg/readSvg';
+import { getFileGeometry } from './geometry/fileGeometry';
 import { measureContour } from './geometry/measure';
 import { DEFAULT_NEAR_CLOSED_TOLERANCE_MM } from './geometry/tolerances';
 import type {
@@ -14,6 +15,7 @@ import type {
   ContourResult,
   FileFormat,
   Finding,
+  MeasuredContour,
   RawFinding,
   ReadResult,
   SourceSpan,
@@ -67,11 +69,13 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   };
   const readResult = read(text, format, options);
   checkCancelled();
-  const contours: ContourResult[] = readResult.contours.map((contour) => ({
+  const measured: MeasuredContour[] = readResult.contours.map((contour) => ({
     contour,
     metrics: measureContour(contour, readResult.yAxis),
   }));
   checkCancelled();
+  const geometry = getFileGeometry(measured, checkCancelled, options.isCancelled);
+  const contours: ContourResult[] = measured.map((c, i) => ({ ...c, geometry: geometry.contours[i]! }));
 
   const raw: RawFinding[] = [...readResult.problems];
   for (const check of checks) {
@@ -79,6 +83,7 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
     check.run({
       read: readResult,
       contours,
+      geometry,
       options,
       report: (f) => raw.push({ ...f, checkId: check.id }),
     });
@@ -95,7 +100,7 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   }
   findings.sort((a, b) => a.span.start - b.span.start || a.span.end - b.span.end);
 
-  return { format, yAxis: readResult.yAxis, units: readResult.units, contours, findings };
+  return { format, yAxis: readResult.yAxis, units: readResult.units, contours, summary: geometry.summary, findings };
 }
 
 /**

@@ -194,9 +194,96 @@ export interface ContourMetrics {
   readonly segmentCount: number;
 }
 
-export interface ContourResult {
+/** A contour with its figures, before the file-wide geometry (what nesting and intersections read). */
+export interface MeasuredContour {
   readonly contour: Contour;
   readonly metrics: ContourMetrics;
+}
+
+/** A point where a contour crosses or touches itself. */
+export interface SelfIntersection {
+  readonly xMm: number;
+  readonly yMm: number;
+  /** `touch`: tangency, a vertex on an edge, or a vertex met twice without the passes crossing. */
+  readonly kind: 'crossing' | 'touch';
+  /** The later segment in drawing order, and the other one. */
+  readonly span: SourceSpan;
+  readonly otherSpan: SourceSpan;
+}
+
+/** A stretch of this contour lying on top of outline (a double cut). */
+export interface ContourOverlap {
+  /** Index of the contour it lies on; this contour's own index when it runs back over itself. */
+  readonly otherContour: number;
+  /** Length cut twice (mm). */
+  readonly lengthMm: number;
+  /** This contour's run, and the run it lies on. */
+  readonly span: SourceSpan;
+  readonly otherSpan: SourceSpan;
+}
+
+/** A radius or zone width with its centre; the true value is within ±errorBoundMm of valueMm. */
+export interface CircleFigure {
+  readonly valueMm: number;
+  readonly centreXMm: number;
+  readonly centreYMm: number;
+  readonly errorBoundMm: number;
+}
+
+export type MeasuredCircle = { readonly value: CircleFigure } | { readonly value: null; readonly reason: string };
+
+/** Roundness figures of a closed contour (REFERENCES.md §1.2–1.4, §3); undefined ones carry a reason. */
+export interface ContourRoundness {
+  /** Largest inscribed circle ρ (even-odd inside). */
+  readonly inradius: MeasuredCircle;
+  /** Smallest enclosing circle R. */
+  readonly circumradius: MeasuredCircle;
+  /** Minimum-zone roundness (ISO 12181): radial separation of the two concentric circles; centre = theirs. */
+  readonly minZone: MeasuredCircle;
+  /** √D/π, what the isoperimetric deficit guarantees: R − ρ ≤ √D/π (Bonnesen). */
+  readonly bonnesenBoundMm: Measured;
+  /** R − ρ as measured. */
+  readonly radiusGapMm: Measured;
+  /** True when the contour crosses itself: Q and D from the net signed area are then meaningless. */
+  readonly selfCrossing: boolean;
+  /** ∬ w² dA (mm²), the area in Banchoff–Pohl's L² ≥ 4π∬w² dA; defined for self-crossing contours. */
+  readonly windingSquaredAreaMm2: Measured;
+}
+
+/** Convex hull of the drawn curve. For curves the true hull is within [value, value + error]. */
+export interface ContourHull {
+  readonly areaMm2: number;
+  readonly perimeterMm: number;
+  readonly areaErrorMm2: number;
+  readonly perimeterErrorMm: number;
+  /** A / A_hull: 1 for a convex contour, smaller the deeper its notches. */
+  readonly convexity: Measured;
+}
+
+/** What the file-wide geometry says about one contour. */
+export interface ContourGeometry {
+  readonly selfIntersections: readonly SelfIntersection[];
+  readonly overlaps: readonly ContourOverlap[];
+  /** Index of the innermost closed contour containing this one, or null. */
+  readonly parent: number | null;
+  /** Number of closed contours containing it: even = material boundary, odd = hole (even-odd rule). */
+  readonly depth: number;
+  readonly roundness: ContourRoundness;
+  readonly hull: ContourHull;
+}
+
+export interface ContourResult extends MeasuredContour {
+  readonly geometry: ContourGeometry;
+}
+
+/** File figures: one pierce per contour with something to cut; net area = Σ parts (outer − holes). */
+export interface FileSummary {
+  readonly contours: number;
+  /** Outer boundaries (even depth, closed), each with its holes. */
+  readonly parts: number;
+  readonly pierces: number;
+  readonly cutLengthMm: number;
+  readonly netAreaMm2: number;
 }
 
 export interface AnalysisResult {
@@ -204,6 +291,7 @@ export interface AnalysisResult {
   readonly yAxis: YAxis;
   readonly units: UnitsInfo;
   readonly contours: readonly ContourResult[];
+  readonly summary: FileSummary;
   /** All problems, sorted by position; severities resolved, `off` ones removed. */
   readonly findings: readonly Finding[];
 }

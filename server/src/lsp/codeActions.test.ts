@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import type { Finding } from '../engine/index';
 import { getCodeActions } from './codeActions';
 import { toDiagnostic } from './diagnostics';
-import { makeContour, makeResult, openMetrics, spanOf } from './testing/fakeResult';
+import { makeContour, makeResult, openGeometry, openMetrics, spanOf } from './testing/fakeResult';
 
 const text = '<svg>\n<path d="M0 0H10V10H0V0.05"/>\n</svg>';
 const doc = TextDocument.create('file:///c.svg', 'xml', 3, text);
@@ -22,7 +22,9 @@ const nearClosed: Finding = {
   severity: 'warning',
   message: 'Contour #0 is not closed.',
 };
-const contour = { contour: makeContour({ span: spanOf(text, 'M0 0H10V10H0V0.05'), closed: false }), metrics: openMetrics(39.95, 0.05, [0, 0, 10, 10]) };
+const contour = { contour: makeContour({ span: spanOf(text, 'M0 0H10V10H0V0.05'), closed: false }), metrics: openMetrics(39.95, 0.05, [0, 0, 10, 10]),
+  // Hull of its points: the 10 × 10 square (area 100, perimeter 40).
+  geometry: openGeometry({ areaMm2: 100, perimeterMm: 40 }) };
 const result = makeResult([contour], [nearClosed]);
 const diagnostic = toDiagnostic(nearClosed, doc, { relatedInformation: false });
 

@@ -2,17 +2,19 @@ import { MarkupKind } from 'vscode-languageserver';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { describe, expect, it } from 'vitest';
 import { escapeMarkdown, getContourCard, getHover, renderCardPlaintext } from './hover';
-import { makeContour, makeResult, openMetrics, PX_UNITS, rectangleMetrics, spanOf } from './testing/fakeResult';
+import { makeContour, makeResult, openGeometry, openMetrics, PX_UNITS, rectangleGeometry, rectangleMetrics, spanOf } from './testing/fakeResult';
 
 const text = '<svg>\n<rect id="plate" width="10" height="20"/>\n<path d="M0 0 L3 0 L3 4"/>\n</svg>';
 const doc = TextDocument.create('file:///h.svg', 'xml', 1, text);
 const rectSpan = spanOf(text, '<rect id="plate" width="10" height="20"/>');
 const pathSpan = spanOf(text, 'M0 0 L3 0 L3 4');
-const rect = { contour: makeContour({ index: 0, span: rectSpan, element: 'rect', id: 'plate' }), metrics: rectangleMetrics(10, 20) };
+const rect = { contour: makeContour({ index: 0, span: rectSpan, element: 'rect', id: 'plate' }), metrics: rectangleMetrics(10, 20), geometry: rectangleGeometry(10, 20) };
 // Open path (0,0) → (3,0) → (3,4): drawn length 3 + 4 = 7 mm; gap = hypot(3, 4) = 5 mm (3-4-5 triangle).
 const open = {
   contour: makeContour({ index: 1, span: pathSpan, closed: false }),
   metrics: openMetrics(7, 5, [0, 0, 3, 4]),
+  // Hull: the right triangle with legs 3 and 4 (area 3·4/2 = 6, perimeter 3 + 4 + 5 = 12), inside the rectangle.
+  geometry: openGeometry({ areaMm2: 6, perimeterMm: 12 }, 0),
 };
 const result = makeResult([rect, open]);
 
@@ -48,6 +50,45 @@ describe('getContourCard', () => {
       expect(row(c, label)).toBe('— (open contour)');
     }
     expect(c.rows.map((r) => r.value).join('\n')).not.toMatch(/NaN|undefined|null/);
+  });
+
+  it('shows the rectangle\'s roundness: ρ, R, minimum zone and R − ρ beside the Bonnesen bound', () => {
+    expect(row(card, 'Inradius ρ')).toBe('5 mm, centre (5, 10)'); // half the short side
+    expect(row(card, 'Circumradius R')).toBe('11.18 mm, centre (5, 10)'); // half the diagonal √(10² + 20²)/2 = 11.1803
+    expect(row(card, 'Minimum zone')).toBe('6.18 mm, centre (5, 10)'); // (√500 − 10)/2 = 6.18034 (REFERENCES.md §3.4 rectangle)
+    // R − ρ = 11.18034 − 5; √D/π = √1086.726/π = 32.9656/π = 10.4933 (REFERENCES.md §1.3).
+    expect(row(card, 'R − ρ')).toBe('6.18 mm measured ≤ Bonnesen bound √D/π = 10.493 mm');
+    expect(row(card, 'Convex hull')).toBe('area 200 mm², perimeter 60 mm'); // a convex shape is its own hull
+    expect(row(card, 'Convexity')).toBe('1');
+    expect(row(card, 'Nesting')).toBe('outer boundary');
+    expect(row(card, 'Self-crossing')).toBeUndefined();
+  });
+
+  it('says an open contour has no roundness and names the closed contour it lies in', () => {
+    const c = getContourCard(open, result);
+    for (const label of ['Inradius ρ', 'Circumradius R', 'Minimum zone', 'R − ρ']) expect(row(c, label)).toBe('— (the contour is not closed)');
+    expect(row(c, 'Convex hull')).toBe('area 6 mm², perimeter 12 mm');
+    expect(row(c, 'Nesting')).toBe('inside contour #0');
+  });
+
+  it('calls a bow-tie\'s Q meaningless and gives its Banchoff–Pohl area ∬w² dA = 2 (REFERENCES.md §1.4)', () => {
+    const bowTie = {
+      ...rect,
+      geometry: {
+        ...rect.geometry,
+        selfIntersections: [{ xMm: 1, yMm: 1, kind: 'crossing' as const, span: pathSpan, otherSpan: pathSpan }],
+        roundness: {
+          ...rect.geometry.roundness,
+          selfCrossing: true,
+          minZone: { value: null, reason: 'the contour crosses itself, so it has no inside to zone' },
+          bonnesenBoundMm: { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' },
+          windingSquaredAreaMm2: { value: 2 },
+        },
+      },
+    };
+    const c = getContourCard(bowTie, makeResult([bowTie]));
+    expect(row(c, 'Self-crossing')).toBe('crosses itself once: Q and the deficit from the net area mean nothing here; Banchoff–Pohl L² ≥ 4π∬w² dA with ∬w² dA = 2 mm²');
+    expect(row(c, 'R − ρ')).toContain('Bonnesen bound — (the contour crosses itself');
   });
 
   it('says which unit was assumed and where to change it', () => {

@@ -6,7 +6,7 @@ import { MarkupKind } from 'vscode-languageserver';
 import type { Hover } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { formatNumber, getContourAt } from '../engine/index';
-import type { AnalysisResult, ContourResult, Measured, UnitsInfo } from '../engine/index';
+import type { AnalysisResult, ContourGeometry, ContourResult, Measured, MeasuredCircle, UnitsInfo } from '../engine/index';
 import { toRange } from './diagnostics';
 
 /** One line of the card: a label and its value, both plain text. */
@@ -28,6 +28,52 @@ function undefinedBecause(reason: string): string {
 function measured(m: Measured, unit: string): string {
   if (m.value === null) return undefinedBecause(m.reason);
   return unit ? `${formatNumber(m.value)} ${unit}` : formatNumber(m.value);
+}
+
+/** A radius or zone with its centre; the error bound is shown when it reaches the shown digits. */
+function circle(m: MeasuredCircle): string {
+  if (m.value === null) return undefinedBecause(m.reason);
+  const { valueMm, centreXMm, centreYMm, errorBoundMm } = m.value;
+  const bound = formatNumber(errorBoundMm) === '0' ? '' : ` ± ${formatNumber(errorBoundMm)}`;
+  return `${formatNumber(valueMm)}${bound} mm, centre (${formatNumber(centreXMm)}, ${formatNumber(centreYMm)})`;
+}
+
+function describeNesting(g: ContourGeometry, closed: boolean): string {
+  if (g.parent === null) return closed ? 'outer boundary' : 'not inside any closed contour';
+  if (!closed) return `inside contour #${g.parent}`;
+  return g.depth % 2 === 1 ? `hole in contour #${g.parent}` : `island inside contour #${g.parent}`;
+}
+
+/** Rows for the file-wide geometry: roundness (REFERENCES.md §1.2–1.4, §3), hull, nesting, self-crossing. */
+function geometryRows(entry: ContourResult): CardRow[] {
+  const { metrics, geometry: g } = entry;
+  const r = g.roundness;
+  const f = (v: number) => formatNumber(v);
+  const gap = r.radiusGapMm.value === null ? undefinedBecause(r.radiusGapMm.reason)
+    : r.bonnesenBoundMm.value === null ? `${f(r.radiusGapMm.value)} mm measured (Bonnesen bound ${undefinedBecause(r.bonnesenBoundMm.reason)})`
+    : `${f(r.radiusGapMm.value)} mm measured ≤ Bonnesen bound √D/π = ${f(r.bonnesenBoundMm.value)} mm`;
+  const rows: CardRow[] = [
+    { label: 'Inradius ρ', value: circle(r.inradius) },
+    { label: 'Circumradius R', value: circle(r.circumradius) },
+    { label: 'Minimum zone (ISO 12181)', value: circle(r.minZone) },
+    { label: 'R − ρ', value: gap },
+    { label: 'Convex hull', value: `area ${f(g.hull.areaMm2)} mm², perimeter ${f(g.hull.perimeterMm)} mm` },
+    { label: 'Convexity A/A_hull', value: measured(g.hull.convexity, '') },
+    { label: 'Nesting', value: describeNesting(g, metrics.closed) },
+  ];
+  if (r.selfCrossing) {
+    const crossings = g.selfIntersections.filter((x) => x.kind === 'crossing').length;
+    const w2 = r.windingSquaredAreaMm2.value === null ? undefinedBecause(r.windingSquaredAreaMm2.reason) : `${f(r.windingSquaredAreaMm2.value)} mm²`;
+    rows.push({
+      label: 'Self-crossing',
+      value: `crosses itself ${crossings === 1 ? 'once' : `${crossings} times`}: Q and the deficit from the net area mean nothing here; Banchoff–Pohl L² ≥ 4π∬w² dA with ∬w² dA = ${w2}`,
+    });
+  }
+  if (g.overlaps.length > 0) {
+    const total = g.overlaps.reduce((s, o) => s + o.lengthMm, 0);
+    rows.push({ label: 'Double cut', value: `${f(total)} mm cut twice` });
+  }
+  return rows;
 }
 
 function describeUnits(units: UnitsInfo): string {
@@ -64,6 +110,7 @@ export function getContourCard(entry: ContourResult, result: AnalysisResult): Co
       { label: 'Area', value: measured(metrics.areaMm2, 'mm²') },
       { label: 'Roundness Q = 4πA/L²', value: measured(metrics.q, '') },
       { label: 'Deficit L² − 4πA', value: measured(metrics.deficitMm2, 'mm²') },
+      ...geometryRows(entry),
       { label: 'Bounding box', value: bbox },
       { label: 'Units', value: describeUnits(result.units) },
     ],

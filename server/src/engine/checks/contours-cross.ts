@@ -1,4 +1,3 @@
-import { getFileIntersections } from '../geometry/intersect';
 import { defineCheck } from './defineCheck';
 
 /** Two different contours cross: the parts they cut out overlap. */
@@ -10,7 +9,7 @@ export default defineCheck({
     crossing: 'Crosses contour {otherContour} at ({xMm}, {yMm}) mm: the two parts overlap.',
   },
   run(ctx) {
-    const r = getFileIntersections(ctx.contours, ctx.options.isCancelled);
+    const r = ctx.geometry.intersections;
     for (const x of r.intersections) {
       if (x.kind !== 'crossing' || x.a.contour === x.b.contour) continue;
       ctx.report({

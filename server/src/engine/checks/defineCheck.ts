@@ -1,9 +1,12 @@
+import type { FileGeometry } from '../geometry/fileGeometry';
 import type { AnalysisOptions, ContourResult, RawFinding, ReadResult, Severity } from '../types';
 
-/** What a check sees: the read model, each contour with its figures, and a way to report. */
+/** What a check sees: the read model, each contour with its figures, the file's geometry (computed
+ *  once per analysis, shared by all checks) and a way to report. */
 export interface CheckContext {
   readonly read: ReadResult;
   readonly contours: readonly ContourResult[];
+  readonly geometry: FileGeometry;
   readonly options: AnalysisOptions;
   report(finding: Omit<RawFinding, 'checkId'>): void;
 }

@@ -1,4 +1,3 @@
-import { getFileIntersections } from '../geometry/intersect';
 import { defineCheck } from './defineCheck';
 
 /** Largest mean width 2A/L (mm) of a closed contour that is reported as enclosing no area. A sliver
@@ -15,11 +14,9 @@ export default defineCheck({
     degenerate: 'Closed contour encloses almost no area: {areaMm2} mm² for {perimeterMm} mm of outline.',
   },
   run(ctx) {
-    const r = getFileIntersections(ctx.contours, ctx.options.isCancelled);
     // Lobes of a self-crossing contour cancel in the signed area; self-crossing reports those.
-    const crossing = new Set(r.intersections.filter((x) => x.kind === 'crossing' && x.a.contour === x.b.contour).map((x) => x.a.contour));
-    ctx.contours.forEach(({ contour, metrics }, pos) => {
-      if (!metrics.closed || crossing.has(pos) || metrics.areaMm2.value === null || metrics.perimeterMm.value === null) return;
+    ctx.contours.forEach(({ contour, metrics, geometry }) => {
+      if (!metrics.closed || geometry.roundness.selfCrossing || metrics.areaMm2.value === null || metrics.perimeterMm.value === null) return;
       const area = metrics.areaMm2.value, perimeter = metrics.perimeterMm.value;
       if (perimeter <= 0 || (2 * area) / perimeter > DEGENERATE_MEAN_WIDTH_MM) return;
       ctx.report({

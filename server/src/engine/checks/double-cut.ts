@@ -1,4 +1,3 @@
-import { getFileIntersections } from '../geometry/intersect';
 import { defineCheck } from './defineCheck';
 
 /** Two stretches of outline lie on top of each other: the machine would cut the same line twice. */
@@ -11,7 +10,7 @@ export default defineCheck({
     otherContour: 'Runs on top of contour {otherContour} for {lengthMm} mm: that stretch would be cut twice.',
   },
   run(ctx) {
-    const r = getFileIntersections(ctx.contours, ctx.options.isCancelled);
+    const r = ctx.geometry.intersections;
     for (const o of r.overlaps) {
       const same = o.a.contour === o.b.contour;
       const other = ctx.contours[o.a.contour]!.contour.index;

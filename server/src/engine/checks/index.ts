@@ -1,12 +1,17 @@
 /** The registry of checks: id → definition. A new check is added here and documented in the README. */
 import branching from './branching';
+import contoursCross from './contours-cross';
 import type { CheckDefinition } from './defineCheck';
+import degenerateArea from './degenerate-area';
+import doubleCut from './double-cut';
 import duplicateEntity from './duplicate-entity';
 import nearClosed from './near-closed';
 import notAnalysed from './not-analysed';
 import openContour from './open-contour';
 import outOfPlane from './out-of-plane';
 import parseError from './parse-error';
+import selfCrossing from './self-crossing';
+import selfTouch from './self-touch';
 import unitsAssumed from './units-assumed';
 import zeroLengthSegment from './zero-length-segment';
 
@@ -14,7 +19,7 @@ export type { CheckContext, CheckDefinition } from './defineCheck';
 
 /** Every check, in the order they run. */
 export const checks: readonly CheckDefinition[] = [parseError, unitsAssumed, openContour, nearClosed, zeroLengthSegment,
-  notAnalysed, outOfPlane, branching, duplicateEntity];
+  notAnalysed, outOfPlane, branching, duplicateEntity, selfCrossing, selfTouch, contoursCross, doubleCut, degenerateArea];
 
 const byId = new Map(checks.map((c) => [c.id, c]));
 

@@ -1,4 +1,3 @@
-import { getFileIntersections } from '../geometry/intersect';
 import { defineCheck } from './defineCheck';
 
 /** A contour that crosses itself: the cutter path cuts through material it has already separated. */
@@ -11,7 +10,7 @@ export default defineCheck({
     unresolved: 'Could not decide whether the contour crosses itself near ({xMm}, {yMm}) mm: the curves stay within 1e-9 of each other too long (subdivision limit reached).',
   },
   run(ctx) {
-    const r = getFileIntersections(ctx.contours, ctx.options.isCancelled);
+    const r = ctx.geometry.intersections;
     for (const x of r.intersections) {
       if (x.kind !== 'crossing' || x.a.contour !== x.b.contour) continue;
       ctx.report({

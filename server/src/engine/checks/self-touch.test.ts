@@ -1,21 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import selfTouch from './self-touch';
-import { readSvg } from '../formats/svg/readSvg';
-import { measureContour } from '../geometry/measure';
-import { wrapSvg } from '../../../../test/support/checkCases';
-import { DEFAULT_OPTIONS } from '../index';
-import type { CheckDefinition } from './defineCheck';
-import type { RawFinding } from '../types';
-
-/** Runs one check on an SVG snippet (1 user unit = 1 mm) and returns its findings with the text they cover. */
-function run(check: CheckDefinition, svg: string) {
-  const text = wrapSvg(svg);
-  const read = readSvg(text, { assumedUnit: 'auto' });
-  const contours = read.contours.map((contour) => ({ contour, metrics: measureContour(contour, read.yAxis) }));
-  const found: RawFinding[] = [];
-  check.run!({ read, contours, options: DEFAULT_OPTIONS, report: (f) => found.push({ ...f, checkId: check.id }) });
-  return found.map((f) => ({ messageId: f.messageId, at: text.slice(f.span.start, f.span.end), data: f.data, related: f.related?.map((r) => text.slice(r.span.start, r.span.end)) }));
-}
+import { runCheck as run } from '../../../../test/support/runCheck';
 
 describe('self-touch', () => {
   it('accepts a square and a bow-tie (a crossing is not a touch)', () => {

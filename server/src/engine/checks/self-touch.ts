@@ -1,4 +1,3 @@
-import { getFileIntersections } from '../geometry/intersect';
 import { defineCheck } from './defineCheck';
 
 /** A contour that touches itself without crossing: a vertex on an edge, two vertices at one point, a tangency. */
@@ -10,7 +9,7 @@ export default defineCheck({
     touch: 'Contour touches itself at ({xMm}, {yMm}) mm: the part hangs together by a single point there.',
   },
   run(ctx) {
-    const r = getFileIntersections(ctx.contours, ctx.options.isCancelled);
+    const r = ctx.geometry.intersections;
     for (const x of r.intersections) {
       if (x.kind !== 'touch' || x.a.contour !== x.b.contour) continue;
       ctx.report({

@@ -97,7 +97,11 @@ export interface HullFigures {
  * (Steiner's formula for parallel convex bodies; [src: Steiner 1840 — from memory]).
  */
 export function getHull(contour: Contour, toleranceMm: number): HullFigures {
-  const poly = getContourPolyline(contour, toleranceMm);
+  return getPolylineHull(getContourPolyline(contour, toleranceMm));
+}
+
+/** Convex hull figures of an already flattened contour (same bounds as `getHull`). */
+export function getPolylineHull(poly: Polyline): HullFigures {
   const h = getConvexHull(poly.points);
   let a = 0, per = 0;
   const [ox, oy] = h[0] ?? [0, 0];

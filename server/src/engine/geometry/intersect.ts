@@ -763,19 +763,3 @@ export function findSelfIntersections(contour: Contour, options: Omit<IntersectO
 export function findContourCrossings(contours: readonly Contour[], options: Omit<IntersectOptions, 'acrossContours' | 'withinContours'> = {}): IntersectionResult {
   return findIntersections(contours, { ...options, withinContours: false });
 }
-
-const fileCache = new WeakMap<readonly { readonly contour: Contour }[], IntersectionResult>();
-
-/**
- * `findIntersections` over a file's contours, computed once per contour list and shared by the
- * checks that read it (self-crossing, self-touch, double-cut, contours-cross). Positions in the
- * result are positions in `contours`.
- */
-export function getFileIntersections(contours: readonly { readonly contour: Contour }[], isCancelled?: () => boolean): IntersectionResult {
-  let r = fileCache.get(contours);
-  if (!r) {
-    r = findIntersections(contours.map((c) => c.contour), isCancelled ? { isCancelled } : {});
-    fileCache.set(contours, r);
-  }
-  return r;
-}

@@ -8,7 +8,7 @@
  * Candidate containers come from a flatbush index of contour boxes. [common practice, no source]
  */
 import Flatbush from 'flatbush';
-import type { ContourResult } from '../types';
+import type { FileSummary, MeasuredContour } from '../types';
 import { getPiecePoint } from './intersectPieces';
 import { createWindingTester, type WindingTester } from './winding';
 
@@ -31,24 +31,17 @@ export interface Nesting {
   readonly parts: readonly Part[];
 }
 
-export interface FileSummary {
-  readonly contours: number;
-  readonly parts: number;
-  /** One pierce per contour that has something to cut. */
-  readonly pierces: number;
-  readonly cutLengthMm: number;
-  readonly netAreaMm2: number;
-}
-
 function samplePoints(t: WindingTester): [number, number][] {
   const out: [number, number][] = [];
   for (let i = 0; i < t.pieces.count && out.length < 8; i++) out.push(getPiecePoint(t.pieces.buf, i, 0.5));
   return out;
 }
 
-export function getNesting(contours: readonly ContourResult[]): Nesting {
+export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   const n = contours.length;
-  const testers = contours.map((c) => createWindingTester(c.contour));
+  // Testers are built on first use: a contour whose box meets no other closed contour's box needs none.
+  const testers: (WindingTester | undefined)[] = new Array(n);
+  const tester = (i: number) => (testers[i] ??= createWindingTester(contours[i]!.contour));
   const closed = contours.map((c) => c.metrics.closed && c.contour.segments.length > 0);
   const parent: (number | null)[] = new Array(n).fill(null);
   const depth: number[] = new Array(n).fill(0);
@@ -61,15 +54,18 @@ export function getNesting(contours: readonly ContourResult[]): Nesting {
   tree?.finish();
   const area = (i: number) => contours[i]!.metrics.areaMm2.value ?? 0;
   for (let i = 0; i < n; i++) {
-    const samples = samplePoints(testers[i]!);
-    if (samples.length === 0 || !tree) continue;
+    if (!tree) break;
+    const [minX, minY, maxX, maxY] = contours[i]!.metrics.bboxMm;
+    if (tree.search(minX, minY, maxX, maxY).every((k) => indexed[k] === i)) continue;
+    const samples = samplePoints(tester(i));
+    if (samples.length === 0) continue;
     const [sx, sy] = samples[0]!;
     for (const k of tree.search(sx, sy, sx, sy)) {
       const j = indexed[k]!;
       if (j === i) continue;
       let inside: boolean | null = null;
       for (const [x, y] of samples) {
-        const r = testers[j]!.getWinding(x, y);
+        const r = tester(j).getWinding(x, y);
         if (!r.onBoundary) {
           inside = Math.abs(r.winding) % 2 === 1;
           break;
@@ -98,7 +94,7 @@ export function getNesting(contours: readonly ContourResult[]): Nesting {
   return { parent: parent.map((p) => (p === null ? null : contours[p]!.contour.index)), depth, parts };
 }
 
-export function getFileSummary(contours: readonly ContourResult[], nesting: Nesting = getNesting(contours)): FileSummary {
+export function getFileSummary(contours: readonly MeasuredContour[], nesting: Nesting = getNesting(contours)): FileSummary {
   return {
     contours: contours.length,
     parts: nesting.parts.length,

@@ -3,13 +3,18 @@ import fc from 'fast-check';
 import { contourFromSegments, ellipseArc, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import { measureContour } from './measure';
 import { getConvexHull, getHull } from './hull';
+import type { Contour } from '../types';
+import { findSelfIntersections } from './intersect';
 import { getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
-const roundnessOf = (pts: readonly (readonly [number, number])[]) => {
-  const c = polygon(pts);
-  return getRoundness(c, measureContour(c, 'up'));
+/** Roundness and hull of a contour, told whether it crosses itself by the intersection search. */
+const figuresOf = (c: Contour) => {
+  const crossing = findSelfIntersections(c).intersections.some((x) => x.kind === 'crossing');
+  const { roundness, hull } = getRoundness(c, measureContour(c, 'up'), crossing);
+  return { ...roundness, hull, convexity: hull.convexity };
 };
+const roundnessOf = (pts: readonly (readonly [number, number])[]) => figuresOf(polygon(pts));
 
 describe('roundness check values', () => {
   for (const n of [3, 4, 6, 8, 12]) {
@@ -36,7 +41,7 @@ describe('roundness check values', () => {
 
   it('gives an ellipse 2×1 R = 2, ρ = 1, t_MZ = a − b = 1 within its stated bound (REFERENCES.md §2.4, §3.4)', () => {
     const c = contourFromSegments([ellipseArc(0, 0, 2, 1)], true);
-    const r = getRoundness(c, measureContour(c, 'up'));
+    const r = figuresOf(c);
     expect(Math.abs(r.circumradius.value!.valueMm - 2)).toBeLessThanOrEqual(r.circumradius.value!.errorBoundMm + 1e-12);
     expect(Math.abs(r.inradius.value!.valueMm - 1)).toBeLessThanOrEqual(r.inradius.value!.errorBoundMm + 1e-9);
     expect(Math.abs(r.minZone.value!.valueMm - 1)).toBeLessThanOrEqual(r.minZone.value!.errorBoundMm + 1e-9);

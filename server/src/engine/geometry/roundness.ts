@@ -16,50 +16,27 @@
  * Curved outlines are flattened within δ (hull.ts); max and min distances then move by ≤ δ, so R and
  * ρ carry ±δ and t_MZ ±2δ on top of the search tolerance; both are in the stated error bound.
  */
-import type { Contour, ContourMetrics, Measured } from '../types';
+import Flatbush from 'flatbush';
+import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getContourPolyline, getHull } from './hull';
+import { getContourPolyline, getPolylineHull } from './hull';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
 /** Flattening tolerance for curves, relative to the outline's size. */
 export const ROUNDNESS_FLATTENING_RELATIVE = 1e-6;
 /** Most cells evaluated by one branch-and-bound search; the bound reached is reported if hit. */
-export const MAX_ROUNDNESS_CELLS = 20000;
+export const MAX_ROUNDNESS_CELLS = 2000;
 /** Most polyline vertices for the slab integral ∬w² dA (its cost is quadratic). */
 export const MAX_WINDING_INTEGRAL_VERTICES = 20000;
+/** Most flattened vertices for the inradius and minimum-zone searches: each of their ≤ MAX_ROUNDNESS_CELLS
+ *  cells scans every edge, so the cost is cells × vertices (a 1000-vertex wavy circle takes ~0.5 s).
+ *  Above it those figures are undefined with this reason; the circumradius and hull are still given. */
+export const MAX_ROUNDNESS_VERTICES = 2000;
 
 type Pt = readonly [number, number];
 
 export interface Circle { readonly x: number; readonly y: number; readonly r: number }
-
-export interface RoundnessValue {
-  readonly valueMm: number;
-  readonly centreX: number;
-  readonly centreY: number;
-  /** The true value is within ±errorBoundMm of valueMm. */
-  readonly errorBoundMm: number;
-}
-
-export type RoundnessMeasured = ({ readonly value: RoundnessValue } | { readonly value: null; readonly reason: string });
-
-export interface Roundness {
-  readonly inradius: RoundnessMeasured;
-  readonly circumradius: RoundnessMeasured;
-  /** Minimum-zone roundness; `onSearchRim` = the best centre lies on the enclosing disc (elongated shape, §3.4). */
-  readonly minZone: RoundnessMeasured & { readonly onSearchRim?: boolean };
-  /** √D/π: what the isoperimetric deficit guarantees about R − ρ (REFERENCES.md §1.3). */
-  readonly bonnesenBoundMm: Measured;
-  /** R − ρ as measured. */
-  readonly radiusGapMm: Measured;
-  readonly hull: { readonly areaMm2: number; readonly perimeterMm: number; readonly areaErrorMm2: number; readonly perimeterErrorMm: number };
-  /** A / A_hull (1 for convex shapes). */
-  readonly convexity: Measured;
-  /** True when the contour crosses itself: then Q and D from the net area are meaningless (§1.4). */
-  readonly selfCrossing: boolean;
-  /** ∬ w² dA (mm²) for self-crossing contours, the area that makes L² ≥ 4π∬w² dA hold (§1.4). */
-  readonly windingSquaredAreaMm2: Measured;
-}
 
 // ---------------------------------------------------------------- smallest enclosing circle
 
@@ -115,15 +92,73 @@ function distToSegment(x: number, y: number, a: Pt, b: Pt): number {
   return Math.hypot(x - a[0] - t * dx, y - a[1] - t * dy);
 }
 
-/** Distance from (x, y) to the closed polyline, and whether the point is inside (even-odd). */
-function polylineDistance(pts: readonly Pt[], x: number, y: number): { d: number; inside: boolean } {
-  let d = Infinity, inside = false;
-  for (let i = 0, j = pts.length - 1; i < pts.length; j = i++) {
-    const a = pts[j]!, b = pts[i]!;
-    d = Math.min(d, distToSegment(x, y, a, b));
-    if ((a[1] > y) !== (b[1] > y) && x < a[0] + ((y - a[1]) * (b[0] - a[0])) / (b[1] - a[1])) inside = !inside;
+/**
+ * Distance from a point to a closed polyline and whether the point is inside (even-odd), answered
+ * from a flatbush index of the edges, with the same results as scanning every edge:
+ * - nearest edge: the edge nearest by box gives an upper bound d0 on the distance; every edge at
+ *   distance ≤ d0 has its box within the square of half-side d0, so the minimum over the edges found
+ *   there is exact;
+ * - inside: an edge that crosses the ray to the right of the point has a box meeting that ray.
+ */
+export function createPolylineDistance(pts: readonly Pt[]): (x: number, y: number) => { d: number; inside: boolean } {
+  const n = pts.length;
+  if (n === 0) return () => ({ d: Infinity, inside: false });
+  const index = new Flatbush(n);
+  for (let i = 0; i < n; i++) {
+    const a = pts[(i + n - 1) % n]!, b = pts[i]!;
+    index.add(Math.min(a[0], b[0]), Math.min(a[1], b[1]), Math.max(a[0], b[0]), Math.max(a[1], b[1]));
   }
-  return { d, inside };
+  index.finish();
+  const edge = (i: number): [Pt, Pt] => [pts[(i + n - 1) % n]!, pts[i]!];
+  return (x, y) => {
+    const [near] = index.neighbors(x, y, 1);
+    const [a0, b0] = edge(near!);
+    const d0 = distToSegment(x, y, a0, b0);
+    let d = d0;
+    for (const i of index.search(x - d0, y - d0, x + d0, y + d0)) {
+      const [a, b] = edge(i);
+      d = Math.min(d, distToSegment(x, y, a, b));
+    }
+    let inside = false;
+    for (const i of index.search(x, y, index.maxX, y)) {
+      const [a, b] = edge(i);
+      if ((a[1] > y) !== (b[1] > y) && x < a[0] + ((y - a[1]) * (b[0] - a[0])) / (b[1] - a[1])) inside = !inside;
+    }
+    return { d, inside };
+  };
+}
+
+/**
+ * Largest distance from a point to a point set, exact: the points are grouped in runs of
+ * FARTHEST_RUN with their boxes; runs are scanned in order of the farthest corner of their box
+ * (an upper bound) until that bound falls below the best distance found.
+ */
+const FARTHEST_RUN = 32;
+function createFarthestDistance(pts: readonly Pt[]): (x: number, y: number) => number {
+  const runs: [number, number, number, number, number][] = [];
+  for (let s = 0; s < pts.length; s += FARTHEST_RUN) {
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (let k = s; k < Math.min(pts.length, s + FARTHEST_RUN); k++) {
+      const [px, py] = pts[k]!;
+      minX = Math.min(minX, px); minY = Math.min(minY, py); maxX = Math.max(maxX, px); maxY = Math.max(maxY, py);
+    }
+    runs.push([s, minX, minY, maxX, maxY]);
+  }
+  const bounds = new Float64Array(runs.length);
+  const order = runs.map((_, k) => k);
+  return (x, y) => {
+    runs.forEach(([, minX, minY, maxX, maxY], k) => {
+      bounds[k] = Math.hypot(Math.max(x - minX, maxX - x), Math.max(y - minY, maxY - y));
+    });
+    order.sort((p, q) => bounds[q]! - bounds[p]!);
+    let best = 0;
+    for (const k of order) {
+      if (bounds[k]! <= best) break;
+      const s = runs[k]![0];
+      for (let i = s; i < Math.min(pts.length, s + FARTHEST_RUN); i++) best = Math.max(best, Math.hypot(pts[i]![0] - x, pts[i]![1] - y));
+    }
+    return best;
+  };
 }
 
 // ---------------------------------------------------------------- branch and bound
@@ -198,16 +233,14 @@ function maximise(f: (x: number, y: number) => number, lipschitz: number, box: r
  */
 export function getMinimumZone(points: readonly Pt[], options: { asPoints?: boolean; tolerance?: number } = {}) {
   const mec = getSmallestEnclosingCircle(points);
-  const hull = points; // the farthest point from any centre is a vertex: scanning all vertices is exact
+  // The farthest point of the outline from any centre is a vertex: the farthest vertex is exact.
+  const farthest = createFarthestDistance(points);
   const tol = options.tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * 2 * mec.r;
-  const inner = options.asPoints
-    ? (x: number, y: number) => Math.min(...points.map((p) => Math.hypot(p[0] - x, p[1] - y)))
-    : (x: number, y: number) => polylineDistance(points, x, y).d;
-  const width = (x: number, y: number) => {
-    let out = 0;
-    for (const p of hull) out = Math.max(out, Math.hypot(p[0] - x, p[1] - y));
-    return out - inner(x, y);
-  };
+  const polyline = options.asPoints ? null : createPolylineDistance(points);
+  const inner = polyline
+    ? (x: number, y: number) => polyline(x, y).d
+    : (x: number, y: number) => Math.min(...points.map((p) => Math.hypot(p[0] - x, p[1] - y)));
+  const width = (x: number, y: number) => farthest(x, y) - inner(x, y);
   const r = maximise(
     (x, y) => -width(x, y), 2,
     [mec.x - mec.r, mec.y - mec.r, mec.x + mec.r, mec.y + mec.r], tol,
@@ -218,8 +251,7 @@ export function getMinimumZone(points: readonly Pt[], options: { asPoints?: bool
   const dc = Math.hypot(x - mec.x, y - mec.y);
   if (dc > mec.r) { x = mec.x + ((x - mec.x) * mec.r) / dc; y = mec.y + ((y - mec.y) * mec.r) / dc; }
   const value = width(x, y);
-  let outer = 0;
-  for (const p of hull) outer = Math.max(outer, Math.hypot(p[0] - x, p[1] - y));
+  const outer = farthest(x, y);
   return {
     widthMm: value, centreX: x, centreY: y, outerRadiusMm: outer, innerRadiusMm: outer - value,
     errorBoundMm: Math.max(0, value + r.upper), capped: r.capped,
@@ -232,8 +264,9 @@ export function getLargestInscribedCircle(points: readonly Pt[], tolerance?: num
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const [x, y] of points) { minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y); }
   const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * Math.hypot(maxX - minX, maxY - minY);
+  const distance = createPolylineDistance(points);
   const r = maximise((x, y) => {
-    const { d, inside } = polylineDistance(points, x, y);
+    const { d, inside } = distance(x, y);
     return inside ? d : -d;
   }, 1, [minX, minY, maxX, maxY], tol, () => true);
   return { radiusMm: r.f, centreX: r.x, centreY: r.y, errorBoundMm: Math.max(0, r.upper - r.f), capped: r.capped };
@@ -266,43 +299,71 @@ export function getWindingSquaredArea(points: readonly Pt[], extraHeights: reado
   return total;
 }
 
-/** All roundness figures of one contour (closed contours only). */
-export function getRoundness(contour: Contour, metrics: ContourMetrics): Roundness {
+/** Roundness figures and the convex hull of one contour. */
+export interface RoundnessFigures {
+  readonly roundness: ContourRoundness;
+  readonly hull: ContourHull;
+}
+
+const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBoundMm: number): MeasuredCircle =>
+  ({ value: { valueMm, centreXMm, centreYMm, errorBoundMm } });
+
+/**
+ * All roundness figures of one contour. `selfCrossing` comes from the file's intersections
+ * (intersect.ts), computed once per analysis.
+ */
+export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCrossing: boolean): RoundnessFigures {
   const [a, b, c, d] = metrics.bboxMm;
   const size = Math.hypot(c - a, d - b);
-  const notClosed = { value: null, reason: 'the contour is not closed' } as const;
-  const hull = getHull(contour, ROUNDNESS_FLATTENING_RELATIVE * size);
-  const selfCrossing = findSelfIntersections(contour).intersections.some((x) => x.kind === 'crossing');
-  const hullOut = { areaMm2: hull.areaMm2, perimeterMm: hull.perimeterMm, areaErrorMm2: hull.areaErrorMm2, perimeterErrorMm: hull.perimeterErrorMm };
+  const poly = getContourPolyline(contour, ROUNDNESS_FLATTENING_RELATIVE * size);
+  const hullFigures = getPolylineHull(poly);
+  const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
+    : selfCrossing ? { value: null, reason: 'the contour crosses itself, so its net area is not the material area' }
+    // The flattened hull lies inside the true one (area short by ≤ areaErrorMm2), so the ratio may
+    // exceed 1 by that much; the true ratio never does (the hull contains the contour).
+    : hullFigures.areaMm2 > 0 ? { value: Math.min(1, metrics.areaMm2.value / hullFigures.areaMm2) } : { value: null, reason: 'the convex hull has no area' };
+  const hull: ContourHull = {
+    areaMm2: hullFigures.areaMm2, perimeterMm: hullFigures.perimeterMm,
+    areaErrorMm2: hullFigures.areaErrorMm2, perimeterErrorMm: hullFigures.perimeterErrorMm, convexity,
+  };
   const deficit = metrics.deficitMm2;
   const bonnesen: Measured = selfCrossing
     ? { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' }
     : deficit.value === null ? { value: null, reason: deficit.reason } : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
-  const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
-    : hull.areaMm2 > 0 ? { value: metrics.areaMm2.value / hull.areaMm2 } : { value: null, reason: 'the convex hull has no area' };
+  const undef = (reason: string) => ({ value: null, reason }) as const;
   if (!metrics.closed || size === 0) {
-    return { inradius: notClosed, circumradius: notClosed, minZone: notClosed, bonnesenBoundMm: bonnesen, radiusGapMm: notClosed, hull: hullOut, convexity, selfCrossing, windingSquaredAreaMm2: notClosed };
+    const why = undef(metrics.closed ? 'the contour has no extent' : 'the contour is not closed');
+    return { hull, roundness: { inradius: why, circumradius: why, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: why } };
   }
-  const poly = getContourPolyline(contour, ROUNDNESS_FLATTENING_RELATIVE * size);
   const delta = poly.deviationMm;
-  const mec = getSmallestEnclosingCircle(hull.points);
-  const circumradius = { value: { valueMm: mec.r, centreX: mec.x, centreY: mec.y, errorBoundMm: delta } };
-  const lic = getLargestInscribedCircle(poly.points);
-  const inradius = { value: { valueMm: lic.radiusMm, centreX: lic.centreX, centreY: lic.centreY, errorBoundMm: lic.errorBoundMm + delta } };
-  const mz = getMinimumZone(poly.points);
-  const minZone = selfCrossing
-    ? { value: null, reason: 'the contour crosses itself' } as const
-    : { value: { valueMm: mz.widthMm, centreX: mz.centreX, centreY: mz.centreY, errorBoundMm: mz.errorBoundMm + 2 * delta }, onSearchRim: mz.onSearchRim };
-  let windingSquared: Measured = { value: null, reason: 'defined for self-crossing contours only; for a simple contour it equals the area' };
+  const mec = getSmallestEnclosingCircle(hullFigures.points);
+  const circumradius = toCircle(mec.r, mec.x, mec.y, delta);
+  let windingSquared: Measured = undef('defined for self-crossing contours only; for a simple contour it equals the area');
   if (selfCrossing) {
     windingSquared = poly.points.length > MAX_WINDING_INTEGRAL_VERTICES
-      ? { value: null, reason: `more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices` }
+      ? undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`)
       : { value: getWindingSquaredArea(poly.points, findSelfIntersections(polylineContour(contour, poly.points)).intersections.map((x) => x.y)) };
   }
+  if (poly.points.length > MAX_ROUNDNESS_VERTICES) {
+    const why = undef(`the flattened contour has ${poly.points.length} vertices, more than the ${MAX_ROUNDNESS_VERTICES} searched`);
+    return { hull, roundness: { inradius: why, circumradius, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: windingSquared } };
+  }
+  const lic = getLargestInscribedCircle(poly.points);
+  const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + delta);
+  let minZone: MeasuredCircle = undef('the contour crosses itself, so it has no inside to zone');
+  if (!selfCrossing) {
+    const mz = getMinimumZone(poly.points);
+    minZone = mz.onSearchRim
+      ? undef('not round: the shape is elongated, so the best centre lies on the rim of its enclosing circle and no finite minimum zone exists')
+      : toCircle(mz.widthMm, mz.centreX, mz.centreY, mz.errorBoundMm + 2 * delta);
+  }
   return {
-    inradius, circumradius, minZone, bonnesenBoundMm: bonnesen,
-    radiusGapMm: { value: mec.r - lic.radiusMm },
-    hull: hullOut, convexity, selfCrossing, windingSquaredAreaMm2: windingSquared,
+    hull,
+    roundness: {
+      inradius, circumradius, minZone, bonnesenBoundMm: bonnesen,
+      radiusGapMm: { value: mec.r - lic.radiusMm },
+      selfCrossing, windingSquaredAreaMm2: windingSquared,
+    },
   };
 }
 

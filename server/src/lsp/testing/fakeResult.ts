@@ -2,7 +2,7 @@
  * Hand-built engine results for the adapter's unit tests, so the conversions are tested against
  * figures written in the test (with their formulas), not against the engine's own output.
  */
-import type { AnalysisResult, Contour, ContourMetrics, ContourResult, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
+import type { AnalysisResult, Contour, ContourGeometry, ContourMetrics, ContourResult, FileSummary, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
 
 /** The span of the first occurrence of `needle` in `text` (after `from`); throws when absent. */
 export function spanOf(text: string, needle: string, from = 0): SourceSpan {
@@ -63,6 +63,59 @@ export function openMetrics(lengthMm: number, gapMm: number, bbox: readonly [num
   };
 }
 
+/** Geometry of the a × b mm rectangle of `rectangleMetrics`, alone in its file. */
+export function rectangleGeometry(a: number, b: number): ContourGeometry {
+  const perimeter = 2 * (a + b), area = a * b;
+  const circumradius = Math.hypot(a, b) / 2; // half the diagonal
+  const inradius = Math.min(a, b) / 2; // half the short side
+  const deficit = perimeter ** 2 - 4 * Math.PI * area;
+  const centre = { centreXMm: a / 2, centreYMm: b / 2, errorBoundMm: 0 };
+  return {
+    selfIntersections: [],
+    overlaps: [],
+    parent: null,
+    depth: 0,
+    roundness: {
+      inradius: { value: { valueMm: inradius, ...centre } },
+      circumradius: { value: { valueMm: circumradius, ...centre } },
+      // Rectangle whose long side is at most twice the short one: zone about the centre, outer = half diagonal, inner = half the short side
+      // (REFERENCES.md §3.4, "Rectangle 2×1: centre").
+      minZone: { value: { valueMm: circumradius - inradius, ...centre } },
+      bonnesenBoundMm: { value: Math.sqrt(deficit) / Math.PI }, // √D/π (REFERENCES.md §1.3)
+      radiusGapMm: { value: circumradius - inradius },
+      selfCrossing: false,
+      windingSquaredAreaMm2: { value: null, reason: 'defined for self-crossing contours only; for a simple contour it equals the area' },
+    },
+    hull: { areaMm2: area, perimeterMm: perimeter, areaErrorMm2: 0, perimeterErrorMm: 0, convexity: { value: 1 } },
+  };
+}
+
+/** Geometry of an open contour inside contour `parent` (or none), whose convex hull is given. */
+export function openGeometry(hull: { areaMm2: number; perimeterMm: number }, parent: number | null = null): ContourGeometry {
+  const reason = 'the contour is not closed';
+  const none = { value: null, reason } as const;
+  return {
+    selfIntersections: [],
+    overlaps: [],
+    parent,
+    depth: parent === null ? 0 : 1,
+    roundness: { inradius: none, circumradius: none, minZone: none, bonnesenBoundMm: { value: null, reason: 'open contour' }, radiusGapMm: none, selfCrossing: false, windingSquaredAreaMm2: none },
+    hull: { ...hull, areaErrorMm2: 0, perimeterErrorMm: 0, convexity: { value: null, reason: 'open contour' } },
+  };
+}
+
+/** The file summary by its definitions: one pierce per contour, parts = closed contours at even depth. */
+export function summarize(contours: readonly ContourResult[]): FileSummary {
+  const parts = contours.filter((c) => c.metrics.closed && c.geometry.depth % 2 === 0);
+  return {
+    contours: contours.length,
+    parts: parts.length,
+    pierces: contours.length,
+    cutLengthMm: contours.reduce((s, c) => s + c.metrics.lengthMm, 0),
+    netAreaMm2: contours.reduce((s, c) => s + (c.metrics.closed ? (c.geometry.depth % 2 === 0 ? 1 : -1) * (c.metrics.areaMm2.value ?? 0) : 0), 0),
+  };
+}
+
 export const MM_UNITS: UnitsInfo = { declared: true, mmPerUnit: 1, assumed: null, span: { start: 0, end: 0 } };
 /** CSS px: 1 px = 1/96 in = 25.4/96 mm (CSS Values and Units Level 3, §5.2 absolute lengths). */
 export const PX_UNITS: UnitsInfo = { declared: false, mmPerUnit: 25.4 / 96, assumed: 'px', span: { start: 0, end: 0 } };
@@ -72,5 +125,5 @@ export function makeResult(
   findings: readonly Finding[] = [],
   units: UnitsInfo = MM_UNITS,
 ): AnalysisResult {
-  return { format: 'svg', yAxis: 'down', units, contours, findings };
+  return { format: 'svg', yAxis: 'down', units, contours, summary: summarize(contours), findings };
 }

@@ -50,12 +50,27 @@ interface JsonContour {
   q: number | null;
   deficitMm2: number | null;
   bboxMm: [number, number, number, number];
+  selfIntersections: { xMm: number; yMm: number; kind: 'crossing' | 'touch' }[];
+  overlaps: { otherContour: number; lengthMm: number }[];
+  parent: number | null;
+  roundness: {
+    inradiusMm: number | null;
+    circumradiusMm: number | null;
+    minZoneMm: number | null;
+    bonnesenBoundMm: number | null;
+    radiusGapMm: number | null;
+    circumCentreMm: [number, number] | null;
+    selfCrossing: boolean;
+    windingSquaredAreaMm2: number | null;
+  };
+  hull: { areaMm2: number; perimeterMm: number; convexity: number | null };
 }
 interface JsonFile {
   path: string;
   format: string;
   units: { declared: boolean; mmPerUnit: number; assumed: string | null };
   contours: JsonContour[];
+  summary: { contours: number; parts: number; pierces: number; cutLengthMm: number; netAreaMm2: number };
   problems: { id: string; severity: string; message: string; line: number; column: number; endLine: number; endColumn: number }[];
 }
 
@@ -114,6 +129,63 @@ describe('loopwise check on samples/lamp-panel.svg (mm drawing, clean)', () => {
     const segment = (r: number, t: number) => ((r * r) / 2) * (t - Math.sin(t));
     expect(moon.perimeterMm).toBeCloseTo(9 * t9 + 11 * t11, 9);
     expect(moon.areaMm2).toBeCloseTo(segment(11, t11) - segment(9, t9), 9);
+  });
+
+  it('sums the file: 9 contours, 1 part with 8 holes, 9 pierces, cut length Σ L, net area edge − holes (REFERENCES §2.1, §2.2, §2.9, §4.3)', async () => {
+    const { summary } = await report('lamp-panel.svg');
+    const edgeL = 2 * 138 + 2 * 78 + 2 * PI * 6, edgeA = 150 * 90 - (4 - PI) * 36; // rounded rectangle §2.9
+    const hexL = 36, hexA = ((3 * Math.sqrt(3)) / 2) * 36; // regular hexagon R = 6: L = 6R, A = (3√3/2)R² (§2.2)
+    const t9 = 2 * PI - 2 * Math.asin(8 / 9), t11 = 2 * PI - 2 * Math.asin(8 / 11);
+    const segment = (r: number, t: number) => ((r * r) / 2) * (t - Math.sin(t)); // §4.3
+    const moonL = 9 * t9 + 11 * t11, moonA = segment(11, t11) - segment(9, t9);
+    expect(summary).toMatchObject({ contours: 9, parts: 1, pierces: 9 });
+    // Holes: four M4 circles r 2.2, the window r 20 (§2.1), two vents, the crescent.
+    expect(summary.cutLengthMm).toBeCloseTo(edgeL + 4 * 2 * PI * 2.2 + 2 * PI * 20 + 2 * hexL + moonL, 4);
+    expect(summary.netAreaMm2).toBeCloseTo(edgeA - 4 * PI * 2.2 ** 2 - PI * 400 - 2 * hexA - moonA, 4);
+  });
+
+  it('nests every hole in the panel edge and finds no crossing, touch or double cut', async () => {
+    const f = await report('lamp-panel.svg');
+    expect(f.contours.map((c) => c.parent)).toEqual([null, 0, 0, 0, 0, 0, 0, 0, 0]);
+    for (const c of f.contours) expect([c.selfIntersections, c.overlaps]).toEqual([[], []]);
+  });
+
+  it('gives the hexagonal vent R = 6, ρ = R cos(π/6), zone R(1 − cos(π/6)) and R − ρ within Bonnesen (REFERENCES §2.2, §3.4, §1.3)', async () => {
+    const v = byId(await report('lamp-panel.svg'), 'vent-left');
+    const rho = 6 * Math.cos(PI / 6);
+    expect(v.roundness.circumradiusMm).toBeCloseTo(6, 5); // vertices rounded to 1e-6
+    expect(v.roundness.inradiusMm).toBeCloseTo(rho, 5);
+    expect(v.roundness.minZoneMm).toBeCloseTo(6 - rho, 5);
+    expect(v.roundness.circumCentreMm![0]).toBeCloseTo(30, 5);
+    expect(v.roundness.circumCentreMm![1]).toBeCloseTo(50, 5);
+    // √D/π with L = 36, A = (3√3/2)·36: √(1296 − 4π·93.5307)/π = 3.4963
+    expect(v.roundness.bonnesenBoundMm).toBeCloseTo(Math.sqrt(36 ** 2 - 4 * PI * ((3 * Math.sqrt(3)) / 2) * 36) / PI, 5);
+    expect(v.roundness.radiusGapMm!).toBeLessThanOrEqual(v.roundness.bonnesenBoundMm!);
+    expect(v.roundness.selfCrossing).toBe(false);
+    expect(v.hull.areaMm2).toBeCloseTo(((3 * Math.sqrt(3)) / 2) * 36, 4); // convex: its own hull
+    expect(v.hull.perimeterMm).toBeCloseTo(36, 5);
+    expect(v.hull.convexity).toBeCloseTo(1, 9);
+  });
+
+  it('gives the panel edge R = half-diagonal of the corner centres + r, ρ = h/2 and the Bonnesen bound √D/π (REFERENCES §2.9, §1.3)', async () => {
+    const e = byId(await report('lamp-panel.svg'), 'panel-edge');
+    const L = 2 * 138 + 2 * 78 + 2 * PI * 6, A = 150 * 90 - (4 - PI) * 36;
+    const R = Math.hypot(69, 39) + 6; // corner-arc centres at (80 ± 69, 50 ± 39), radius 6
+    // Curves are flattened within 1e-6 of the bbox diagonal for these figures (README "Figures and units").
+    const delta = 1e-6 * Math.hypot(150, 90);
+    expect(Math.abs(e.roundness.circumradiusMm! - R)).toBeLessThanOrEqual(delta);
+    expect(Math.abs(e.roundness.inradiusMm! - 45)).toBeLessThanOrEqual(delta); // half the 90 mm height
+    expect(e.roundness.bonnesenBoundMm).toBeCloseTo(Math.sqrt(L * L - 4 * PI * A) / PI, 6);
+    expect(Math.abs(e.roundness.radiusGapMm! - (R - 45))).toBeLessThanOrEqual(2 * delta);
+    expect(e.roundness.windingSquaredAreaMm2).toBeNull(); // simple contour
+  });
+
+  it('prints the file summary and a roundness table in the text report', async () => {
+    const { stdout } = await cli('check', join(samples, 'lamp-panel.svg'));
+    expect(stdout).toContain('  9 contours, 1 part, 9 pierces, cut length 810.695 mm, net area 11821.347 mm²');
+    expect(stdout).toMatch(/ {2}roundness\n {2}# +ρ mm +R mm +zone mm +R−ρ mm +√D\/π mm +convexity +inside/);
+    // Vent: ρ = 6 cos(π/6) = 5.196, R = 6, zone = R − ρ = 0.804, √D/π = 3.496 (§2.2, §1.3), inside contour #0.
+    expect(stdout).toMatch(/\n {2}6 +5\.196 +6 +0\.804 +0\.804 +3\.496 +1 +#0\n/);
   });
 });
 

@@ -4,7 +4,7 @@
  * ("The JSON report"). Pure: strings out, no I/O.
  */
 import { formatNumber } from '../engine/index';
-import type { AnalysisResult, ContourResult, Finding, Measured, Severity } from '../engine/index';
+import type { AnalysisResult, ContourResult, FileSummary, Finding, Measured, MeasuredCircle, Severity } from '../engine/index';
 import { createLineIndex, type LineIndex } from '../engine/lineIndex';
 
 export type FileReport =
@@ -12,9 +12,12 @@ export type FileReport =
   | { readonly path: string; readonly error: string };
 
 const valueOf = (m: Measured): number | null => m.value;
+const radiusOf = (m: MeasuredCircle): number | null => m.value?.valueMm ?? null;
+const centreOf = (m: MeasuredCircle): [number, number] | null => (m.value ? [m.value.centreXMm, m.value.centreYMm] : null);
 
 function toJsonContour(c: ContourResult, lines: LineIndex) {
-  const { contour, metrics } = c;
+  const { contour, metrics, geometry } = c;
+  const r = geometry.roundness;
   const start = lines.at(contour.span.start);
   const end = lines.at(contour.span.end);
   return {
@@ -39,6 +42,22 @@ function toJsonContour(c: ContourResult, lines: LineIndex) {
     deficitMm2: valueOf(metrics.deficitMm2),
     bboxMm: metrics.bboxMm,
     segments: metrics.segmentCount,
+    selfIntersections: geometry.selfIntersections.map((x) => ({ xMm: x.xMm, yMm: x.yMm, kind: x.kind })),
+    overlaps: geometry.overlaps.map((o) => ({ otherContour: o.otherContour, lengthMm: o.lengthMm })),
+    parent: geometry.parent,
+    roundness: {
+      inradiusMm: radiusOf(r.inradius),
+      circumradiusMm: radiusOf(r.circumradius),
+      minZoneMm: radiusOf(r.minZone),
+      bonnesenBoundMm: valueOf(r.bonnesenBoundMm),
+      radiusGapMm: valueOf(r.radiusGapMm),
+      inCentreMm: centreOf(r.inradius),
+      circumCentreMm: centreOf(r.circumradius),
+      minZoneCentreMm: centreOf(r.minZone),
+      selfCrossing: r.selfCrossing,
+      windingSquaredAreaMm2: valueOf(r.windingSquaredAreaMm2),
+    },
+    hull: { areaMm2: geometry.hull.areaMm2, perimeterMm: geometry.hull.perimeterMm, convexity: valueOf(geometry.hull.convexity) },
   };
 }
 
@@ -68,6 +87,7 @@ export function renderJson(files: readonly FileReport[]): string {
       format: result.format,
       units: { declared: result.units.declared, mmPerUnit: result.units.mmPerUnit, assumed: result.units.assumed },
       contours: result.contours.map((c) => toJsonContour(c, lines)),
+      summary: result.summary,
       problems: result.findings.map((f) => toJsonProblem(f, lines)),
     };
   });
@@ -82,6 +102,41 @@ function table(rows: readonly (readonly string[])[], rightAligned: ReadonlySet<n
   return rows.map((r) =>
     r.map((cell, col) => (rightAligned.has(col) ? cell.padStart(widths[col]!) : cell.padEnd(widths[col]!))).join('  ').trimEnd(),
   );
+}
+
+function describeSummary(s: FileSummary): string {
+  const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+  return `${plural(s.contours, 'contour')}, ${plural(s.parts, 'part')}, ${plural(s.pierces, 'pierce')}, ` +
+    `cut length ${formatNumber(s.cutLengthMm)} mm, net area ${formatNumber(s.netAreaMm2)} mm²`;
+}
+
+/** To the µm, so flattening residues (a circle's R − ρ of 5e-5 mm) do not crowd the table. */
+const toMicron = (v: number): string => formatNumber(Math.round(v * 1000) / 1000);
+const radius = (m: MeasuredCircle): string => (m.value === null ? dash : toMicron(m.value.valueMm));
+const micron = (m: Measured): string => (m.value === null ? dash : toMicron(m.value));
+
+/** Roundness of the closed contours: ρ, R, minimum zone, R − ρ measured beside Bonnesen's √D/π. */
+function roundnessTable(contours: readonly ContourResult[]): string[] {
+  const closed = contours.filter((c) => c.metrics.closed);
+  if (closed.length === 0) return [];
+  const rows: string[][] = [['#', 'ρ mm', 'R mm', 'zone mm', 'R−ρ mm', '√D/π mm', 'convexity', 'inside', 'note']];
+  for (const { contour, geometry: g } of closed) {
+    const r = g.roundness;
+    rows.push([
+      String(contour.index),
+      radius(r.inradius),
+      radius(r.circumradius),
+      radius(r.minZone),
+      micron(r.radiusGapMm),
+      micron(r.bonnesenBoundMm),
+      show(g.hull.convexity),
+      g.parent === null ? dash : `#${g.parent}`,
+      r.selfCrossing
+        ? `crosses itself: Q, D meaningless; ∬w² dA ${r.windingSquaredAreaMm2.value === null ? dash : `${formatNumber(r.windingSquaredAreaMm2.value)} mm²`}`
+        : '',
+    ]);
+  }
+  return table(rows, new Set([0, 1, 2, 3, 4, 5, 6]));
 }
 
 function describeUnits(result: AnalysisResult): string {
@@ -130,7 +185,10 @@ export function renderText(files: readonly FileReport[]): string {
         ]);
       }
       out.push(...table(rows, new Set([0, 4, 5, 6, 7, 8])).map((l) => `  ${l}`));
+      const roundness = roundnessTable(result.contours);
+      if (roundness.length > 0) out.push('  roundness', ...roundness.map((l) => `  ${l}`));
     }
+    out.push(`  ${describeSummary(result.summary)}`);
     contourCount += result.contours.length;
     for (const f of result.findings) {
       counts[f.severity]++;

@@ -72,6 +72,15 @@ export interface BlockDef {
   readonly entities: readonly DxfEntity[];
 }
 
+/** What is known of a document when its first ENTITIES entity is read (all of it, in a file in section order). */
+export type DocumentSoFar = Pick<DxfDocument, 'insunits' | 'headerSpan' | 'layers' | 'blocks'>;
+
+/**
+ * Receives each entity of the ENTITIES section as soon as it is read, instead of collecting them:
+ * the records then die young, which keeps a million-entity file's memory and garbage collection low.
+ */
+export type EntitySink = (e: DxfEntity, doc: DocumentSoFar) => void;
+
 export interface DxfDocument {
   /** $INSUNITS value and the span of its header variable, when present. */
   readonly insunits?: { readonly value: number; readonly span: SourceSpan };
@@ -79,8 +88,13 @@ export interface DxfDocument {
   readonly headerSpan?: SourceSpan;
   readonly layers: ReadonlyMap<string, LayerInfo>;
   readonly blocks: ReadonlyMap<string, BlockDef>;
-  /** Entities of the ENTITIES section, in file order. */
+  /** Entities of the ENTITIES section, in file order (empty when they went to an EntitySink). */
   readonly entities: readonly DxfEntity[];
+  /**
+   * A HEADER, TABLES or BLOCKS section came after the ENTITIES section (against the DXF section
+   * order): entities passed to a sink were read before all units, layers or blocks were known.
+   */
+  readonly lateSections: boolean;
   readonly problems: readonly RawFinding[];
   /** Line end used by the file. */
   readonly eol: string;
@@ -181,14 +195,22 @@ class DocumentBuilder {
   readonly entities: DxfEntity[] = [];
   insunits?: { value: number; span: SourceSpan };
   headerSpan?: SourceSpan;
+  lateSections = false;
+  private entitiesSeen = false;
   /** Where entities go: the ENTITIES list or the block being defined. */
   private target: DxfEntity[] | null = null;
   private block: { name: string; baseX: number; baseY: number; start: number; entities: DxfEntity[] } | null = null;
   private polyline: { header: DxfEntity & { kind: 'other' }; flags: number; flagsSpan?: SourceSpan; insertFlagsAt: number; elevation: number; vertices: PolyVertex[]; hash: number } | null = null;
 
-  constructor(text: string) {
+  constructor(text: string, private readonly sink?: EntitySink) {
     this.text = text;
     this.sc = new GroupScanner(text);
+  }
+
+  /** Adds an entity to the current target: the sink when streaming the ENTITIES section. */
+  private emit(e: DxfEntity): void {
+    if (this.sink && this.target === this.entities) this.sink(e, this);
+    else this.target?.push(e);
   }
 
   report(span: SourceSpan, detail: string): void {
@@ -238,7 +260,11 @@ class DocumentBuilder {
         expectSectionName = false;
         if (sc.code === 2) {
           section = sc.name;
-          if (section === 'ENTITIES') this.target = this.entities;
+          if (this.entitiesSeen && (section === 'HEADER' || section === 'TABLES' || section === 'BLOCKS')) this.lateSections = true;
+          if (section === 'ENTITIES') {
+            this.target = this.entities;
+            this.entitiesSeen = true;
+          }
           if (section === 'HEADER') this.headerSpan = { start: sc.codeStart, end: sc.valueEnd };
           continue;
         }
@@ -363,7 +389,7 @@ class DocumentBuilder {
 
     const entity = this.buildEntity(base, type);
     if (entity === 'polyline') return;
-    this.target.push(entity);
+    this.emit(entity);
   }
 
   /** Ends the open POLYLINE at `end`; `missingSeqend` reports a sequence cut short. */
@@ -373,7 +399,7 @@ class DocumentBuilder {
     this.polyline = null;
     if (missingSeqend) this.report({ start: p.header.span.start, end: p.header.span.end }, 'POLYLINE has no SEQEND after its vertices');
     const span = { start: p.header.span.start, end };
-    this.target?.push(withBase({ ...p.header, span, hash: p.hash }, {
+    this.emit(withBase({ ...p.header, span, hash: p.hash }, {
       kind: 'polyline', flags: p.flags, flagsSpan: p.flagsSpan, insertFlagsAt: p.insertFlagsAt, elevation: p.elevation, vertices: p.vertices,
     }));
   }
@@ -539,9 +565,12 @@ class DocumentBuilder {
   }
 }
 
-/** Reads the sections, header, layers, blocks and entities of an ASCII DXF text. Never throws. */
-export function parseDxfDocument(text: string): DxfDocument {
-  const d = new DocumentBuilder(text);
+/**
+ * Reads the sections, header, layers, blocks and entities of an ASCII DXF text. Never throws. With a
+ * sink, ENTITIES-section entities go to it as they are read instead of into `entities`.
+ */
+export function parseDxfDocument(text: string, sink?: EntitySink): DxfDocument {
+  const d = new DocumentBuilder(text, sink);
   d.run();
   return {
     insunits: d.insunits,
@@ -549,6 +578,7 @@ export function parseDxfDocument(text: string): DxfDocument {
     layers: d.layers,
     blocks: d.blocks,
     entities: d.entities,
+    lateSections: d.lateSections,
     problems: d.sc.problems,
     eol: d.sc.eol,
   };

@@ -289,6 +289,22 @@ describe('readDxf: chaining', () => {
   });
 });
 
+describe('readDxf: section order', () => {
+  it('reads a file whose HEADER and BLOCKS come after its ENTITIES as if they came first (DXF section order, REFERENCES.md §6.1)', () => {
+    const header = [0, 'SECTION', 2, 'HEADER', 9, '$INSUNITS', 70, 1, 0, 'ENDSEC'];
+    const blocks = [0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'SQ', 10, 0, 20, 0,
+      0, 'LWPOLYLINE', 8, 0, 90, 4, 70, 1, 10, 0, 20, 0, 10, 1, 20, 0, 10, 1, 20, 1, 10, 0, 20, 1, 0, 'ENDBLK', 0, 'ENDSEC'];
+    const entities = [0, 'SECTION', 2, 'ENTITIES', 0, 'INSERT', 8, 0, 2, 'SQ', 10, 5, 20, 5, 0, 'CIRCLE', 8, 0, 10, 0, 20, 0, 40, 1, 0, 'ENDSEC'];
+    const inOrder = read([...header, ...blocks, ...entities, 0, 'EOF'].join('\n') + '\n');
+    const late = read([...entities, ...blocks, ...header, 0, 'EOF'].join('\n') + '\n');
+    expect(inOrder.problems).toEqual([]);
+    expect(late.problems).toEqual([]);
+    expect(late.units.mmPerUnit).toBe(25.4); // $INSUNITS 1 = inch (§6.3)
+    expect(late.contours.map((c) => [c.element, area(c)])).toEqual(inOrder.contours.map((c) => [c.element, area(c)]));
+    expect(area(late.contours[0])).toBeCloseTo(25.4 ** 2, 9); // unit square in inches
+  });
+});
+
 describe('readDxf: malformed input', () => {
   it('reports a binary DXF at offset 0 (REFERENCES.md §6.6)', () => {
     const r = read('AutoCAD Binary DXF\r\n\x1a\0\0\0');

@@ -10,7 +10,7 @@ import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, reverseSegments, type ChainPiece } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
-import { parseDxfDocument, type DxfEntity, type PointRef } from './entities';
+import { parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
 import { getEnd, PieceBuilder, type Piece } from './pieces';
 import { getDxfUnits } from './units';
@@ -39,52 +39,89 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
     });
     return { format: 'dxf', yAxis: 'up', units: getDxfUnits(undefined, undefined, options.assumedUnit, problems), contours: [], problems };
   }
-  const doc = parseDxfDocument(text);
-  problems.push(...doc.problems);
-  const units = getDxfUnits(doc.insunits, doc.headerSpan, options.assumedUnit, problems);
-
-  const builder = new PieceBuilder(doc.blocks, doc.layers, units.mmPerUnit, options.ignoredLayers);
-  // Exact duplicates: an open-addressing table from hash to the last entity with that hash; entities
-  // with equal hashes are listed through `sameHash` (index of the previous one, −1 for none).
-  const entities = doc.entities;
-  let capacity = 16;
-  while (capacity < 2 * entities.length) capacity *= 2;
-  const lastWithHash = new Int32Array(capacity).fill(-1);
-  const sameHash = new Int32Array(entities.length);
-  for (let order = 0; order < entities.length; order++) {
-    const e = entities[order];
-    if (e.kind !== 'other' && !e.paperSpace) {
-      let slot = e.hash & (capacity - 1);
-      while (lastWithHash[slot] >= 0 && entities[lastWithHash[slot]].hash !== e.hash) slot = (slot + 1) & (capacity - 1);
-      const previous = lastWithHash[slot];
-      const first = previous < 0 ? undefined : findDuplicate(text, entities, sameHash, previous, e);
-      if (first) {
-        problems.push({
-          checkId: 'duplicate-entity', messageId: 'duplicate', span: e.span,
-          data: { entity: e.type, line: first.line + 1 },
-          related: [{ span: first.span, message: `The first ${e.type}` }],
-          fixes: [{ title: `Remove the duplicate ${e.type}`, edits: [{ span: e.span, newText: '' }] }],
-        });
-        continue;
-      }
-      sameHash[order] = previous;
-      lastWithHash[slot] = order;
-    }
-    builder.addTopLevel(e, order);
+  // Entities stream from the scanner into pieces, so their records die young. A file whose HEADER,
+  // TABLES or BLOCKS section follows its ENTITIES section is read again, collected, once all is known.
+  let reader = new EntityReader(text, options);
+  const doc = parseDxfDocument(text, (e, known) => reader.take(e, known));
+  if (doc.lateSections) {
+    reader = new EntityReader(text, options);
+    for (const e of parseDxfDocument(text).entities) reader.take(e, doc);
   }
+  const { builder, units } = reader.finish(doc);
+  problems.push(...doc.problems, ...reader.problems);
   reportNotes(builder, doc.layers, problems);
   const contours = buildContours(text, builder.pieces, units, doc.eol, options.nearClosedToleranceMm ?? Infinity, problems);
   return { format: 'dxf', yAxis: 'up', units, contours, problems };
 }
 
-/** The earliest entity kept so far with the same type and groups as `e`, walking the same-hash list from `i`. */
-function findDuplicate(text: string, entities: readonly DxfEntity[], sameHash: Int32Array, i: number, e: DxfEntity): DxfEntity | undefined {
-  let found: DxfEntity | undefined;
-  for (; i >= 0; i = sameHash[i]) {
-    const o = entities[i];
-    if (o.type === e.type && haveSameGroups(text, o.span, e.span)) found = o;
+/**
+ * Turns top-level entities, one at a time, into pieces, setting exact duplicates aside. Of an entity
+ * it keeps only its span, line and hash (for duplicates), not the record.
+ */
+class EntityReader {
+  /** Units and duplicate problems, in the order they arise. */
+  readonly problems: RawFinding[] = [];
+  private builder?: PieceBuilder;
+  private units?: UnitsInfo;
+  private order = 0;
+  /** Kept entities: span start, span end, 0-based line and hash, by their index among the kept ones. */
+  private readonly starts: number[] = [];
+  private readonly ends: number[] = [];
+  private readonly lines: number[] = [];
+  private readonly hashes: number[] = [];
+  /** For each kept entity, the previous kept one with the same hash key (−1 for none). */
+  private readonly sameKey: number[] = [];
+  /** Hash key (the hash's low 30 bits: a small-integer map key) → last kept entity with it. */
+  private readonly lastWithKey = new Map<number, number>();
+
+  constructor(private readonly text: string, private readonly options: ReadDxfOptions) {}
+
+  private start(known: DocumentSoFar): PieceBuilder {
+    this.units = getDxfUnits(known.insunits, known.headerSpan, this.options.assumedUnit, this.problems);
+    this.builder = new PieceBuilder(known.blocks, known.layers, this.units.mmPerUnit, this.options.ignoredLayers);
+    return this.builder;
   }
-  return found;
+
+  take(e: DxfEntity, known: DocumentSoFar): void {
+    const builder = this.builder ?? this.start(known);
+    const order = this.order++;
+    if (e.kind !== 'other' && !e.paperSpace) {
+      const key = e.hash & 0x3fffffff;
+      const last = this.lastWithKey.get(key) ?? -1;
+      const first = last < 0 ? -1 : this.findDuplicate(last, e);
+      if (first >= 0) {
+        this.problems.push({
+          checkId: 'duplicate-entity', messageId: 'duplicate', span: e.span,
+          data: { entity: e.type, line: this.lines[first] + 1 },
+          related: [{ span: { start: this.starts[first], end: this.ends[first] }, message: `The first ${e.type}` }],
+          fixes: [{ title: `Remove the duplicate ${e.type}`, edits: [{ span: e.span, newText: '' }] }],
+        });
+        return;
+      }
+      this.lastWithKey.set(key, this.starts.length);
+      this.starts.push(e.span.start);
+      this.ends.push(e.span.end);
+      this.lines.push(e.line);
+      this.hashes.push(e.hash);
+      this.sameKey.push(last);
+    }
+    builder.addTopLevel(e, order);
+  }
+
+  /** The earliest kept entity with the same groups as `e`, walking the same-key list from `i`; −1 for none. */
+  private findDuplicate(i: number, e: DxfEntity): number {
+    let found = -1;
+    for (; i >= 0; i = this.sameKey[i]) {
+      if (this.hashes[i] === e.hash && haveSameGroups(this.text, { start: this.starts[i], end: this.ends[i] }, e.span)) found = i;
+    }
+    return found;
+  }
+
+  /** The piece builder and units (made now when no entity came). */
+  finish(known: DocumentSoFar): { builder: PieceBuilder; units: UnitsInfo } {
+    const builder = this.builder ?? this.start(known);
+    return { builder, units: this.units! };
+  }
 }
 
 /** The groups of an entity's text, except handles and owners, as `code value` strings. */

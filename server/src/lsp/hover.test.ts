@@ -57,7 +57,7 @@ describe('getContourCard', () => {
     expect(row(card, 'Circumradius R')).toBe('11.18 mm, centre (5, 10)'); // half the diagonal √(10² + 20²)/2 = 11.1803
     expect(row(card, 'Minimum zone')).toBe('6.18 mm, centre (5, 10)'); // (√500 − 10)/2 = 6.18034 (REFERENCES.md §3.4 rectangle)
     // R − ρ = 11.18034 − 5; √D/π = √1086.726/π = 32.9656/π = 10.4933 (REFERENCES.md §1.3).
-    expect(row(card, 'R − ρ')).toBe('6.18 mm measured ≤ Bonnesen bound √D/π = 10.493 mm');
+    expect(row(card, 'R − ρ')).toBe('6.18 mm measured; Bonnesen bound √D/π = 10.493 mm');
     expect(row(card, 'Convex hull')).toBe('area 200 mm², perimeter 60 mm'); // a convex shape is its own hull
     expect(row(card, 'Convexity')).toBe('1');
     expect(row(card, 'Nesting')).toBe('outer boundary');
@@ -89,6 +89,25 @@ describe('getContourCard', () => {
     const c = getContourCard(bowTie, makeResult([bowTie]));
     expect(row(c, 'Self-crossing')).toBe('crosses itself once: Q and the deficit from the net area mean nothing here; Banchoff–Pohl L² ≥ 4π∬w² dA with ∬w² dA = 2 mm²');
     expect(row(c, 'R − ρ')).toContain('Bonnesen bound — (the contour crosses itself');
+  });
+
+  it('shows R − ρ with the error bounds of both radii, so a flattened circle\'s residue is not read as a breach of Bonnesen', () => {
+    // A circle r = 20 flattened within δ = 5.63e-5: ρ = 20 − δ ± δ, R = 20 ± δ (hull.ts), Bonnesen bound 0 (§1.3: D = 0).
+    const delta = 5.63e-5;
+    const circle = {
+      ...rect,
+      geometry: {
+        ...rect.geometry,
+        roundness: {
+          ...rect.geometry.roundness,
+          inradius: { value: { valueMm: 20 - delta, centreXMm: 0, centreYMm: 0, errorBoundMm: delta } },
+          circumradius: { value: { valueMm: 20, centreXMm: 0, centreYMm: 0, errorBoundMm: delta } },
+          radiusGapMm: { value: delta },
+          bonnesenBoundMm: { value: 0 },
+        },
+      },
+    };
+    expect(row(getContourCard(circle, makeResult([circle])), 'R − ρ')).toBe('0.0000563 ± 0.000113 mm measured; Bonnesen bound √D/π = 0 mm');
   });
 
   it('says which unit was assumed and where to change it', () => {

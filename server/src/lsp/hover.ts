@@ -49,9 +49,12 @@ function geometryRows(entry: ContourResult): CardRow[] {
   const { metrics, geometry: g } = entry;
   const r = g.roundness;
   const f = (v: number) => formatNumber(v);
+  // R − ρ carries both radii's error bounds; the Bonnesen bound is exact up to the deficit's rounding.
+  const gapError = (r.inradius.value?.errorBoundMm ?? 0) + (r.circumradius.value?.errorBoundMm ?? 0);
+  const gapBound = formatNumber(gapError) === '0' ? '' : ` ± ${formatNumber(gapError)}`;
   const gap = r.radiusGapMm.value === null ? undefinedBecause(r.radiusGapMm.reason)
-    : r.bonnesenBoundMm.value === null ? `${f(r.radiusGapMm.value)} mm measured (Bonnesen bound ${undefinedBecause(r.bonnesenBoundMm.reason)})`
-    : `${f(r.radiusGapMm.value)} mm measured ≤ Bonnesen bound √D/π = ${f(r.bonnesenBoundMm.value)} mm`;
+    : r.bonnesenBoundMm.value === null ? `${f(r.radiusGapMm.value)}${gapBound} mm measured (Bonnesen bound ${undefinedBecause(r.bonnesenBoundMm.reason)})`
+    : `${f(r.radiusGapMm.value)}${gapBound} mm measured; Bonnesen bound √D/π = ${f(r.bonnesenBoundMm.value)} mm`;
   const rows: CardRow[] = [
     { label: 'Inradius ρ', value: circle(r.inradius) },
     { label: 'Circumradius R', value: circle(r.circumradius) },

@@ -307,4 +307,34 @@ describe('the language server on hostile input', () => {
     expect(s.child.exitCode).toBeNull();
     expect(s.logs.filter((l) => l.type === MessageType.Error).map((l) => l.message)).toEqual([]);
   }, 60000);
+
+  it('serves hovers on another file while a huge file is still being analysed', async () => {
+    const control = 'file:///work/responsive-control.svg';
+    await open(control, DRAWING);
+    // One path of 400 000 line segments (about 9 MB): its analysis takes seconds, on a worker thread.
+    const n = 400_000;
+    const d = ['M100 0'];
+    for (let k = 1; k < n; k++) d.push(`L${(100 * Math.cos((2 * Math.PI * k) / n)).toFixed(4)} ${(100 * Math.sin((2 * Math.PI * k) / n)).toFixed(4)}`);
+    const huge = `<svg xmlns="http://www.w3.org/2000/svg" width="200mm" height="200mm" viewBox="-100 -100 200 200"><path d="${d.join(' ')}Z"/></svg>`;
+    // Hover on the small file every 50 ms until the huge file's problems arrive. Analysed on the
+    // protocol thread, one hover would wait for the whole analysis; on a worker, none waits long.
+    let analysed = false;
+    const started = performance.now();
+    const hugePublished = open('file:///work/huge.svg', huge).then((p) => {
+      analysed = true;
+      return p;
+    });
+    const latencies: number[] = [];
+    while (!analysed) {
+      const t = performance.now();
+      const hover = await s.connection.sendRequest(HoverRequest.type, { textDocument: { uri: control }, position: positionOf(DRAWING, 'H 20') });
+      latencies.push(performance.now() - t);
+      expect((hover?.contents as { value: string }).value).toContain('60 mm'); // rectangle perimeter 2(a+b)
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
+    expect((await hugePublished).diagnostics).toEqual([]);
+    const total = performance.now() - started;
+    expect(latencies.length).toBeGreaterThan(4);
+    expect(Math.max(...latencies)).toBeLessThan(total / 4);
+  }, 60000);
 });

@@ -18,12 +18,13 @@ import type {
   MeasuredContour,
   RawFinding,
   ReadResult,
-  SourceSpan,
 } from './types';
 
 export type * from './types';
 export { checks, getCheck } from './checks/index';
 export { formatNumber } from './format';
+export { getContourAt, toFigures } from './figures';
+export type { AnalysisFigures, ContourFigures, ContourOutline } from './figures';
 
 export const DEFAULT_OPTIONS: AnalysisOptions = {
   nearClosedToleranceMm: DEFAULT_NEAR_CLOSED_TOLERANCE_MM,
@@ -103,20 +104,3 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   return { format, yAxis: readResult.yAxis, units: readResult.units, contours, summary: geometry.summary, findings };
 }
 
-/**
- * The innermost contour whose text contains `offset` (for hovers), or undefined. A DXF contour chained
- * from loose entities is found on any of its entities: its span is only its first one.
- */
-export function getContourAt(result: AnalysisResult, offset: number): ContourResult | undefined {
-  const holds = (s: SourceSpan) => offset >= s.start && offset < s.end;
-  let best: ContourResult | undefined;
-  for (const c of result.contours) {
-    const { span, elementSpan, segments } = c.contour;
-    const own = holds(span) || (result.format === 'dxf' && segments.some((s) => holds(s.span)));
-    if (!own && !holds(elementSpan)) continue;
-    const size = span.end - span.start;
-    // Prefer the subpath whose own span holds the offset, then the smallest.
-    if (!best || (own && size < best.contour.span.end - best.contour.span.start)) best = c;
-  }
-  return best;
-}

@@ -6,7 +6,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { afterEach, describe, expect, it } from 'vitest';
-import { analyze, DEFAULT_OPTIONS, getFormatForPath } from '../engine/index';
+import { analyze, DEFAULT_OPTIONS, getFormatForPath, toFigures } from '../engine/index';
 import type { FileFormat } from '../engine/index';
 import { InlineAnalyser, runJob, WorkerAnalyser } from './analyser';
 import type { JobOptions } from './analyser';
@@ -50,7 +50,7 @@ describe('WorkerAnalyser', () => {
     for (const file of files) {
       const text = readFileSync(dir + file, 'utf8');
       const format = getFormatForPath(file)!;
-      expect(await analyser.analyse(text, format, jobOptions, never), file).toEqual(analyze(text, format, jobOptions));
+      expect(await analyser.analyse(text, format, jobOptions, never), file).toEqual(toFigures(analyze(text, format, jobOptions)));
     }
   });
 
@@ -96,7 +96,7 @@ describe('WorkerAnalyser', () => {
 describe('InlineAnalyser', () => {
   it('returns the engine result, or undefined once outdated', async () => {
     const analyser = new InlineAnalyser();
-    expect(await analyser.analyse(SMALL, 'svg', jobOptions, never)).toEqual(analyze(SMALL, 'svg', jobOptions));
+    expect(await analyser.analyse(SMALL, 'svg', jobOptions, never)).toEqual(toFigures(analyze(SMALL, 'svg', jobOptions)));
     expect(await analyser.analyse(SMALL, 'svg', jobOptions, () => true)).toBeUndefined();
   });
 });

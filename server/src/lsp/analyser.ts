@@ -8,23 +8,26 @@
  * A worker that dies (out of memory on a hostile file, a crash) fails only its own job and is replaced.
  */
 import { Worker } from 'node:worker_threads';
-import { AnalysisCancelled, analyze } from '../engine/index';
-import type { AnalysisOptions, AnalysisResult, FileFormat } from '../engine/index';
+import { AnalysisCancelled, analyze, toFigures } from '../engine/index';
+import type { AnalysisFigures, AnalysisOptions, FileFormat } from '../engine/index';
 
 /** Options for one analysis; `isCancelled` is the analyser's to supply. */
 export type JobOptions = Omit<AnalysisOptions, 'isCancelled'>;
 
 export interface Analyser {
-  /** The analysis, or undefined when `isOutdated()` turned true first. Rejects when the analysis failed. */
-  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisResult | undefined>;
+  /**
+   * The analysis without its segment geometry (see engine/figures.ts), or undefined when
+   * `isOutdated()` turned true first. Rejects when the analysis failed.
+   */
+  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined>;
   dispose(): Promise<void>;
 }
 
 /** Runs the engine on the calling thread. */
 export class InlineAnalyser implements Analyser {
-  async analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisResult | undefined> {
+  async analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined> {
     try {
-      return analyze(text, format, { ...options, isCancelled: isOutdated });
+      return toFigures(analyze(text, format, { ...options, isCancelled: isOutdated }));
     } catch (error) {
       if (error instanceof AnalysisCancelled) return undefined;
       throw error;
@@ -45,7 +48,7 @@ export interface JobRequest {
 
 /** Worker → main thread. */
 export type JobReply =
-  | { readonly id: number; readonly kind: 'done'; readonly result: AnalysisResult }
+  | { readonly id: number; readonly kind: 'done'; readonly result: AnalysisFigures }
   | { readonly id: number; readonly kind: 'cancelled' }
   | { readonly id: number; readonly kind: 'failed'; readonly message: string };
 
@@ -55,7 +58,7 @@ export const CANCEL_POLL_MS = 25;
 interface Job {
   readonly request: JobRequest;
   readonly isOutdated: () => boolean;
-  readonly resolve: (result: AnalysisResult | undefined) => void;
+  readonly resolve: (result: AnalysisFigures | undefined) => void;
   readonly reject: (error: Error) => void;
 }
 
@@ -82,7 +85,7 @@ export class WorkerAnalyser implements Analyser {
 
   constructor(private readonly options: WorkerAnalyserOptions) {}
 
-  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisResult | undefined> {
+  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined> {
     if (this.disposed) return Promise.reject(new Error('The analyser is disposed'));
     return new Promise((resolve, reject) => {
       const cancel = new Int32Array(new SharedArrayBuffer(4));
@@ -160,7 +163,7 @@ export class WorkerAnalyser implements Analyser {
 export function runJob(request: JobRequest): JobReply {
   try {
     const result = analyze(request.text, request.format, { ...request.options, isCancelled: () => Atomics.load(request.cancel, 0) === 1 });
-    return { id: request.id, kind: 'done', result };
+    return { id: request.id, kind: 'done', result: toFigures(result) };
   } catch (error) {
     if (error instanceof AnalysisCancelled) return { id: request.id, kind: 'cancelled' };
     return { id: request.id, kind: 'failed', message: error instanceof Error ? `${error.message}\n${error.stack ?? ''}` : String(error) };

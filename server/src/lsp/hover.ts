@@ -6,8 +6,15 @@ import { MarkupKind } from 'vscode-languageserver';
 import type { Hover } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { formatNumber, getContourAt } from '../engine/index';
-import type { AnalysisResult, ContourGeometry, ContourResult, Measured, MeasuredCircle, UnitsInfo } from '../engine/index';
+import type { AnalysisFigures, ContourGeometry, ContourMetrics, ContourOutline, Measured, MeasuredCircle, UnitsInfo } from '../engine/index';
 import { toRange } from './diagnostics';
+
+/** What a card is made from: a contour's figures (with or without its segments). */
+export interface CardSource {
+  readonly contour: Omit<ContourOutline, 'segmentSpans'>;
+  readonly metrics: ContourMetrics;
+  readonly geometry: ContourGeometry;
+}
 
 /** One line of the card: a label and its value, both plain text. */
 export interface CardRow {
@@ -45,7 +52,7 @@ function describeNesting(g: ContourGeometry, closed: boolean): string {
 }
 
 /** Rows for the file-wide geometry: roundness (REFERENCES.md §1.2–1.4, §3), hull, nesting, self-crossing. */
-function geometryRows(entry: ContourResult): CardRow[] {
+function geometryRows(entry: CardSource): CardRow[] {
   const { metrics, geometry: g } = entry;
   const r = g.roundness;
   const f = (v: number) => formatNumber(v);
@@ -85,7 +92,7 @@ function describeUnits(units: UnitsInfo): string {
 }
 
 /** The card's content as plain data; `getHover` renders it for the client. */
-export function getContourCard(entry: ContourResult, result: AnalysisResult): ContourCard {
+export function getContourCard(entry: CardSource, result: AnalysisFigures): ContourCard {
   const { contour, metrics } = entry;
   const gap = `gap ${formatNumber(metrics.gapMm)} mm`;
   const status = metrics.closed ? (metrics.gapMm > 0 ? `closed (${gap})` : 'closed') : `open, ${gap}`;
@@ -141,7 +148,7 @@ export function renderCardPlaintext(card: ContourCard): string {
 
 /** The hover for `offset`, spanning the contour's text; null when no contour is there. */
 export function getHover(
-  result: AnalysisResult,
+  result: AnalysisFigures,
   document: TextDocument,
   offset: number,
   kind: MarkupKind,

@@ -7,7 +7,7 @@ import { CodeActionKind, MarkupKind, TextDocumentSyncKind, TextDocuments } from 
 import type { CancellationToken, ClientCapabilities, Connection, InitializeResult } from 'vscode-languageserver';
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import { getFormatForPath } from '../engine/index';
-import type { AnalysisResult, FileFormat } from '../engine/index';
+import type { AnalysisFigures, FileFormat } from '../engine/index';
 import type { Analyser } from './analyser';
 import { getCodeActions } from './codeActions';
 import { toDiagnostic } from './diagnostics';
@@ -52,9 +52,9 @@ function getClientFeatures(capabilities: ClientCapabilities): ClientFeatures {
 /** Starts serving on `connection`; analyses run on `analyser` (worker threads in the shipped server). */
 export function startServer(connection: Connection, analyser: Analyser): void {
   const documents = new TextDocuments(TextDocument);
-  const cache = new ModelCache<AnalysisResult>();
+  const cache = new ModelCache<AnalysisFigures>();
   /** Analyses under way by (uri, version, generation), so a hover during validation waits for the same run. */
-  const running = new Map<string, Promise<AnalysisResult | undefined>>();
+  const running = new Map<string, Promise<AnalysisFigures | undefined>>();
   let features: ClientFeatures = getClientFeatures({});
   const settings = new SettingsStore(connection, () => features.configuration);
   /** Bumped whenever the settings change, so results computed with older settings are not cached. */
@@ -65,7 +65,7 @@ export function startServer(connection: Connection, analyser: Analyser): void {
    * does not read this kind of file, or when the document changed (or the request was cancelled)
    * before the analysis finished — a newer run will follow.
    */
-  async function getAnalysis(document: TextDocument, token?: CancellationToken): Promise<AnalysisResult | undefined> {
+  async function getAnalysis(document: TextDocument, token?: CancellationToken): Promise<AnalysisFigures | undefined> {
     const format = getFormatForUri(document.uri);
     if (!format) return undefined;
     const { uri, version } = document;

@@ -12,11 +12,14 @@ import { SymbolKind } from 'vscode-languageserver';
 import type { DocumentSymbol } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { formatNumber } from '../engine/index';
-import type { ContourResult, SourceSpan } from '../engine/index';
+import type { ContourMetrics, ContourOutline, SourceSpan } from '../engine/index';
 import { toRange } from './diagnostics';
 
 /** What a symbol needs of a contour's result (the file-wide geometry is not read). */
-export type SymbolSource = Pick<ContourResult, 'contour' | 'metrics'>;
+export interface SymbolSource {
+  readonly contour: Omit<ContourOutline, 'segmentSpans'>;
+  readonly metrics: ContourMetrics;
+}
 
 function contains(outer: SourceSpan, inner: SourceSpan): boolean {
   return outer.start <= inner.start && inner.end <= outer.end;

@@ -2,7 +2,8 @@
  * Hand-built engine results for the adapter's unit tests, so the conversions are tested against
  * figures written in the test (with their formulas), not against the engine's own output.
  */
-import type { AnalysisResult, Contour, ContourGeometry, ContourMetrics, ContourResult, FileSummary, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
+import { toFigures } from '../../engine/index';
+import type { AnalysisFigures, Contour, ContourGeometry, ContourMetrics, ContourResult, FileSummary, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
 
 /** The span of the first occurrence of `needle` in `text` (after `from`); throws when absent. */
 export function spanOf(text: string, needle: string, from = 0): SourceSpan {
@@ -124,6 +125,6 @@ export function makeResult(
   contours: readonly ContourResult[],
   findings: readonly Finding[] = [],
   units: UnitsInfo = MM_UNITS,
-): AnalysisResult {
-  return { format: 'svg', yAxis: 'down', units, contours, summary: summarize(contours), findings };
+): AnalysisFigures {
+  return toFigures({ format: 'svg', yAxis: 'down', units, contours, summary: summarize(contours), findings });
 }

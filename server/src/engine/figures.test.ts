@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { dxf, line } from '../../../test/support/dxfText';
-import { analyze, getContourAt } from './index';
+import { getContourAt, toFigures } from './figures';
+import { analyze } from './index';
 
 describe('getContourAt', () => {
   it('finds a DXF contour chained from loose entities on every one of its entities, not only the first', () => {
@@ -9,7 +10,7 @@ describe('getContourAt', () => {
     const triangle = [line(20, 0, 30, 0), line(30, 0, 20, 10), line(20, 10, 20, 0)];
     const entities = [square[0], triangle[0], square[1], triangle[1], square[2], triangle[2], square[3]];
     const text = dxf(...entities);
-    const result = analyze(text, 'dxf');
+    const result = toFigures(analyze(text, 'dxf'));
     expect(result.contours).toHaveLength(2);
     let from = 0;
     entities.forEach((e, i) => {
@@ -19,5 +20,21 @@ describe('getContourAt', () => {
       expect(found?.contour.index, `entity ${i}`).toBe(square.includes(e) ? 0 : 1);
     });
     expect(getContourAt(result, text.indexOf('ENTITIES'))).toBeUndefined();
+  });
+});
+
+describe('toFigures', () => {
+  it('keeps every figure and finding, and each segment span in order', () => {
+    const text = dxf(line(0, 0, 10, 0), line(10, 0, 10, 10), line(10, 10, 0, 0.05));
+    const result = analyze(text, 'dxf');
+    const figures = toFigures(result);
+    expect(figures.findings).toEqual(result.findings);
+    expect(figures.summary).toEqual(result.summary);
+    const [full] = result.contours;
+    const [slim] = figures.contours;
+    expect(slim!.metrics).toEqual(full!.metrics);
+    expect(slim!.geometry).toEqual(full!.geometry);
+    expect('segments' in slim!.contour).toBe(false);
+    expect(Array.from(slim!.contour.segmentSpans)).toEqual(full!.contour.segments.flatMap((s) => [s.span.start, s.span.end]));
   });
 });

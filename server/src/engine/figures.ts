@@ -1,0 +1,57 @@
+/**
+ * An analysis without its segment geometry: what the editor adapters read (figures, spans, findings).
+ * A million-segment contour is tens of megabytes of objects; its figures are a few hundred bytes plus
+ * one packed array of segment spans, so they cross from an analysis worker to the protocol thread
+ * in milliseconds instead of seconds.
+ */
+import type { AnalysisResult, Contour, ContourResult } from './types';
+
+/** A contour without segments; `segmentSpans` holds each segment's source span as [start, end, start, end, …]. */
+export interface ContourOutline extends Omit<Contour, 'segments'> {
+  readonly segmentSpans: Int32Array;
+}
+
+export interface ContourFigures extends Omit<ContourResult, 'contour'> {
+  readonly contour: ContourOutline;
+}
+
+export interface AnalysisFigures extends Omit<AnalysisResult, 'contours'> {
+  readonly contours: readonly ContourFigures[];
+}
+
+export function toFigures(result: AnalysisResult): AnalysisFigures {
+  return {
+    ...result,
+    contours: result.contours.map(({ contour, ...rest }) => {
+      const { segments, ...outline } = contour;
+      const segmentSpans = new Int32Array(2 * segments.length);
+      segments.forEach((s, i) => {
+        segmentSpans[2 * i] = s.span.start;
+        segmentSpans[2 * i + 1] = s.span.end;
+      });
+      return { ...rest, contour: { ...outline, segmentSpans } };
+    }),
+  };
+}
+
+/**
+ * The contour whose text holds `offset` (for hovers), or undefined. A contour's own text wins over
+ * the element around it, and of several the smallest. DXF contours chained from loose entities hold
+ * the offset on any of their entities, not only the first.
+ */
+export function getContourAt(result: AnalysisFigures, offset: number): ContourFigures | undefined {
+  let best: ContourFigures | undefined;
+  for (const c of result.contours) {
+    const { span, elementSpan, segmentSpans } = c.contour;
+    const own = (offset >= span.start && offset < span.end) || (result.format === 'dxf' && holdsAny(segmentSpans, offset));
+    if (!own && !(offset >= elementSpan.start && offset < elementSpan.end)) continue;
+    const size = span.end - span.start;
+    if (!best || (own && size < best.contour.span.end - best.contour.span.start)) best = c;
+  }
+  return best;
+}
+
+function holdsAny(spans: Int32Array, offset: number): boolean {
+  for (let i = 0; i < spans.length; i += 2) if (offset >= spans[i]! && offset < spans[i + 1]!) return true;
+  return false;
+}

@@ -1,73 +1,80 @@
 /**
- * DXF reading speed, side by side (run: `npx vitest bench --run test/bench/dxf.bench.ts`).
- * Files of loose LINE/ARC entities (open outlines of 3 lines + 1 arc each, shuffled so chaining has
- * work to do and every outline gets a close fix) at 1e4 and 1e5 entities. Compared: a bare group tokenizer with number conversion (the
- * floor: what any reader must at least do), our reader (scan + entities + chaining), our full analysis,
- * and dxf-parser's parse alone. Peak RSS of the process is printed after each size.
+ * DXF reading and analysis speed side by side, and peak memory (run: `npx vitest bench --run test/bench/dxf.bench.ts`).
+ *
+ * Input: loose LINE/ARC entities (open outlines of 3 lines + 1 arc, shuffled; looseDxf.ts) at 1e4, 1e5
+ * and 1e6 entities. Timed in one process, in turn, for each size (median of 3 runs, 1 run at 1e6):
+ * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
+ * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
+ * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
+ * - dxf-parser: its parseSync alone (no positions, no geometry).
+ * Printed: times, read/floor and analyze/floor (target for analyze ≤ 2), dxf-parser/analyze (target > 1).
+ * Peak RSS at 1e6 (target ≤ 1 GB) is measured in a child process that only reads the file and runs
+ * analyze once (dxfPeakRss.ts, bundled with esbuild), since this process also holds dxf-parser's
+ * objects. The machine is noisy: compare ratios of one run, not absolute times between runs.
+ * LOOPWISE_BENCH_MAX_N=1e5 stops at 1e5.
  */
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import DxfParser from 'dxf-parser';
+import { buildSync } from 'esbuild';
 import { bench, describe } from 'vitest';
 import { readDxf } from '../../server/src/engine/formats/dxf/readDxf';
-import { analyze } from '../../server/src/engine/index';
+import { analyze, DEFAULT_OPTIONS } from '../../server/src/engine/index';
+import { makeLooseDxf, tokenizeFloor } from './looseDxf';
 
-function makeFile(entities: number): string {
-  const out: string[] = ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES'];
-  const shapes = Math.ceil(entities / 4);
-  const cols = Math.ceil(Math.sqrt(shapes));
-  const parts: string[][] = [];
-  for (let k = 0; k < shapes; k++) {
-    const x = (k % cols) * 20, y = Math.floor(k / cols) * 20;
-    const L = (x0: number, y0: number, x1: number, y1: number) => ['0', 'LINE', '8', 'CUT', '10', String(x0), '20', String(y0), '30', '0', '11', String(x1), '21', String(y1), '31', '0'];
-    // Right, top and left edges and a corner arc; the bottom edge is missing, so each outline is open (gap 10 mm).
-    parts.push(L(x + 15, y + 5, x + 15, y + 15), L(x + 15, y + 15, x, y + 15), L(x, y + 15, x, y));
-    parts.push(['0', 'ARC', '8', 'CUT', '10', String(x + 10), '20', String(y + 5), '30', '0', '40', '5', '50', '270', '51', '360']);
+/** Median wall time (ms) of `runs` calls. */
+function time(runs: number, fn: () => unknown): number {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t = performance.now();
+    fn();
+    times.push(performance.now() - t);
   }
-  // Deterministic shuffle (LCG), so pieces arrive out of order.
-  let s = 12345;
-  for (let i = parts.length - 1; i > 0; i--) {
-    s = (s * 1103515245 + 12345) % 2 ** 31;
-    const j = s % (i + 1);
-    [parts[i], parts[j]] = [parts[j], parts[i]];
-  }
-  for (const p of parts) out.push(...p);
-  out.push('0', 'ENDSEC', '0', 'EOF');
-  return out.join('\n') + '\n';
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)]!;
 }
 
-/** The floor: walk every line pair, parse the group code, convert numeric values (codes 10–59). */
-function tokenizeFloor(text: string): number {
-  let pos = 0;
-  let sum = 0;
-  const n = text.length;
-  while (pos < n) {
-    let nl = text.indexOf('\n', pos);
-    if (nl < 0) nl = n;
-    let code = 0;
-    for (let i = pos; i < nl; i++) {
-      const d = text.charCodeAt(i) - 48;
-      if (d >= 0 && d <= 9) code = code * 10 + d;
-    }
-    pos = nl + 1;
-    let nl2 = text.indexOf('\n', pos);
-    if (nl2 < 0) nl2 = n;
-    if (code >= 10 && code < 60) sum += Number(text.slice(pos, nl2));
-    pos = nl2 + 1;
-  }
-  return sum;
+const fmt = (ms: number) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(0)} ms`);
+const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });
+const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
+const sizes = [1e4, 1e5, 1e6].filter((n) => n <= maxN);
+
+for (const n of sizes) {
+  const text = makeLooseDxf(n);
+  const runs = n >= 1e6 ? 1 : 3;
+  analyze(text, 'dxf'); // warm-up: the first call compiles the hot paths
+  const fl = time(runs, () => tokenizeFloor(text));
+  const rd = time(runs, () => read(text));
+  const an = time(runs, () => analyze(text, 'dxf'));
+  const dp = time(runs, () => new DxfParser().parseSync(text));
+  console.log(
+    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl)}, read ${fmt(rd)}, analyze ${fmt(an)}, dxf-parser ${fmt(dp)}` +
+      ` | read/floor ${(rd / fl).toFixed(2)}, analyze/floor ${(an / fl).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dp / an).toFixed(2)} (target > 1)`,
+  );
 }
 
-const options = { time: 0, iterations: 3, warmupIterations: 1 };
-const mb = () => `${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB`;
-
-for (const size of [1e4, 1e5]) {
-  const text = makeFile(size);
-  describe(`${size} loose LINE/ARC entities (${(text.length / 1e6).toFixed(1)} MB)`, () => {
-    bench('floor: bare group tokenizer with number conversion', () => { tokenizeFloor(text); }, options);
-    bench('loopwise readDxf (scan, entities, chaining)', () => { readDxf(text, { assumedUnit: 'auto' }); }, options);
-    bench('loopwise analyze (read + all checks)', () => { analyze(text, 'dxf'); }, options);
-    bench('dxf-parser parseSync (parse only)', () => { new DxfParser().parseSync(text); }, {
-      ...options,
-      teardown: () => console.log(`peak RSS of the process after ${size} entities: ${mb()}`),
-    });
-  });
+if (maxN >= 1e6) {
+  const dir = mkdtempSync(join(tmpdir(), 'loopwise-dxf-bench-'));
+  const script = join(dir, 'dxfPeakRss.cjs');
+  const file = join(dir, 'loose-1e6.dxf');
+  buildSync({ entryPoints: [fileURLToPath(new URL('./dxfPeakRss.ts', import.meta.url))], bundle: true, platform: 'node', format: 'cjs', outfile: script, logLevel: 'error' });
+  writeFileSync(file, makeLooseDxf(1e6));
+  const r = JSON.parse(execFileSync(process.execPath, [script, file], { encoding: 'utf8' })) as { peakRssMb: number; rssTextMb: number; textMb: number; ms: number };
+  rmSync(dir, { recursive: true });
+  console.log(
+    `[dxf.bench] n=1e6 peak RSS of a process that reads the file and analyses it once: ${r.peakRssMb.toFixed(0)} MB (target ≤ 1024 MB;` +
+      ` ${r.rssTextMb.toFixed(0)} MB after reading the ${r.textMb.toFixed(0)} MB text), analyze ${fmt(r.ms)}`,
+  );
 }
+
+// vitest's own side-by-side table at 1e4 (the figures above are the ones to read).
+const small = makeLooseDxf(1e4);
+describe('1e4 loose LINE/ARC entities', () => {
+  bench('floor: bare group tokenizer with number conversion', () => { tokenizeFloor(small); }, { iterations: 3, time: 0 });
+  bench('loopwise readDxf (scan, entities, chaining)', () => { read(small); }, { iterations: 3, time: 0 });
+  bench('loopwise analyze (read + geometry + all checks)', () => { analyze(small, 'dxf'); }, { iterations: 3, time: 0 });
+  bench('dxf-parser parseSync (parse only)', () => { new DxfParser().parseSync(small); }, { iterations: 3, time: 0 });
+});

@@ -26,7 +26,7 @@ describe('getContourCard', () => {
   const card = getContourCard(rect, result);
 
   it('numbers contours from 1 and names the element and id', () => {
-    expect(card.title).toBe('Contour 1 of 2');
+    expect(card.title).toBe('Contour #0 (of 2)');
     expect(card.subtitle).toBe('rect #plate');
   });
 
@@ -122,7 +122,7 @@ describe('getHover', () => {
     expect(hover?.range).toEqual({ start: { line: 2, character: 9 }, end: { line: 2, character: 23 } });
     expect(hover?.contents).toMatchObject({ kind: 'markdown' });
     const value = (hover?.contents as { value: string }).value;
-    expect(value).toContain('Contour 2 of 2');
+    expect(value).toContain('Contour \\#1 (of 2)'); // markdown escapes the #
     expect(value).toContain('open, gap 5 mm');
   });
 

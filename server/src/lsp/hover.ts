@@ -109,7 +109,7 @@ export function getContourCard(entry: CardSource, result: AnalysisFigures): Cont
     .filter((s) => s !== '')
     .join(' ');
   return {
-    title: `Contour ${contour.index + 1} of ${result.contours.length}`,
+    title: `Contour #${contour.index} (of ${result.contours.length})`,
     subtitle: where,
     rows: [
       { label: 'Status', value: status },

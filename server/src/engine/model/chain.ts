@@ -87,14 +87,21 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
     group[i] = id;
   }
 
-  // Hash grid of ends (open addressing), one interleaved record per slot: column, row, group, first end.
-  // Cells have the tolerance as side, so ends within the tolerance lie in the same or an adjacent cell.
+  // Hash grid of ends (open addressing): a slot holds the first end of its cell, whose column, row and
+  // group identify the cell. Cells have the tolerance as side, so ends within the tolerance lie in the
+  // same or an adjacent cell.
+  const col = new Float64Array(endCount);
+  const row = new Float64Array(endCount);
+  for (let e = 0; e < endCount; e++) {
+    col[e] = Math.floor(ex[e] / tolerance);
+    row[e] = Math.floor(ey[e] / tolerance);
+  }
   let capacity = 16;
   while (capacity < 1.5 * endCount) capacity *= 2;
   const mask = capacity - 1;
-  const cells = new Float64Array(4 * capacity).fill(-1);
+  const slots = new Int32Array(capacity).fill(-1);
   const nextInCell = new Int32Array(endCount).fill(-1);
-  const usedCells: number[] = [];
+  const usedSlots: number[] = [];
   /** The slot of a cell, or −1 − (the free slot where it would go). */
   const findCell = (cx: number, cy: number, g: number): number => {
     // Mix all bits into the low ones the mask keeps (murmur3's finaliser): lattice-aligned ends would crowd a few slots.
@@ -102,8 +109,8 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
     h = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
     h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35);
     h = (h ^ (h >>> 16)) & mask;
-    while (cells[4 * h + 3] >= 0) {
-      if (cells[4 * h] === cx && cells[4 * h + 1] === cy && cells[4 * h + 2] === g) return h;
+    for (let first = slots[h]; first >= 0; first = slots[h]) {
+      if (col[first] === cx && row[first] === cy && group[first >> 1] === g) return h;
       h = (h + 1) & mask;
     }
     return -1 - h;
@@ -111,16 +118,14 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
   const tol2 = tolerance * tolerance;
   for (let e = 0; e < endCount; e++) {
     const x = ex[e], y = ey[e];
-    const cx = Math.floor(x / tolerance), cy = Math.floor(y / tolerance), g = group[e >> 1];
-    const slot = findCell(cx, cy, g);
+    const slot = findCell(col[e], row[e], group[e >> 1]);
     if (slot < 0) {
-      const free = -1 - slot;
-      cells[4 * free] = cx; cells[4 * free + 1] = cy; cells[4 * free + 2] = g; cells[4 * free + 3] = e;
-      usedCells.push(free);
+      slots[-1 - slot] = e;
+      usedSlots.push(-1 - slot);
       continue;
     }
     let twin = -1;
-    for (let p = cells[4 * slot + 3]; p >= 0; p = nextInCell[p]) {
+    for (let p = slots[slot]; p >= 0; p = nextInCell[p]) {
       if (ex[p] === x && ey[p] === y) { twin = p; break; }
     }
     if (twin >= 0) {
@@ -128,14 +133,15 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
       // which keeps thousands of ends at one point linear.
       union(e, twin);
     } else {
-      nextInCell[e] = cells[4 * slot + 3];
-      cells[4 * slot + 3] = e;
+      nextInCell[e] = slots[slot];
+      slots[slot] = e;
     }
   }
   // Pairs within one cell, then with the 4 adjacent cells that come after it in (column, row) order.
-  for (const a of usedCells) {
-    const cx = cells[4 * a], cy = cells[4 * a + 1], g = cells[4 * a + 2];
-    for (let p = cells[4 * a + 3]; p >= 0; p = nextInCell[p]) {
+  for (const a of usedSlots) {
+    const head = slots[a];
+    const cx = col[head], cy = row[head], g = group[head >> 1];
+    for (let p = slots[a]; p >= 0; p = nextInCell[p]) {
       for (let q = nextInCell[p]; q >= 0; q = nextInCell[q]) {
         const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
         if (dx * dx + dy * dy <= tol2) union(p, q);
@@ -144,8 +150,8 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
     for (let k = 0; k < NEIGHBOUR_STEPS.length; k += 2) {
       const b = findCell(cx + NEIGHBOUR_STEPS[k], cy + NEIGHBOUR_STEPS[k + 1], g);
       if (b < 0) continue;
-      for (let p = cells[4 * a + 3]; p >= 0; p = nextInCell[p]) {
-        for (let q = cells[4 * b + 3]; q >= 0; q = nextInCell[q]) {
+      for (let p = slots[a]; p >= 0; p = nextInCell[p]) {
+        for (let q = slots[b]; q >= 0; q = nextInCell[q]) {
           const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
           if (dx * dx + dy * dy <= tol2) union(p, q);
         }

@@ -289,6 +289,17 @@ describe('readDxf: chaining', () => {
   });
 });
 
+describe('readDxf: many entities', () => {
+  it('finds the one exact duplicate among 3000 distinct LINEs, past several growths of the duplicate table', () => {
+    const lines = Array.from({ length: 3000 }, (_, i) => line(i, 0, i, 1));
+    const r = read(dxf([...lines, line(7, 0, 7, 1)]));
+    const d = r.problems.filter((p) => p.checkId === 'duplicate-entity');
+    expect(d).toHaveLength(1);
+    expect(d[0].data.line).toBe(5 + 7 * 12); // the 8th LINE: 4 section lines, then 12 lines per LINE (1-based)
+    expect(r.contours).toHaveLength(3000);
+  });
+});
+
 describe('readDxf: section order', () => {
   it('reads a file whose HEADER and BLOCKS come after its ENTITIES as if they came first (DXF section order, REFERENCES.md §6.1)', () => {
     const header = [0, 'SECTION', 2, 'HEADER', 9, '$INSUNITS', 70, 1, 0, 'ENDSEC'];

@@ -8,7 +8,7 @@
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
-import { chainPieces, reverseSegments, type ChainPiece } from '../../model/chain';
+import { chainPieces, reverseSegments, type ChainLink, type ChainPiece } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -69,10 +69,10 @@ class EntityReader {
   private readonly ends: number[] = [];
   private readonly lines: number[] = [];
   private readonly hashes: number[] = [];
-  /** For each kept entity, the previous kept one with the same hash key (−1 for none). */
-  private readonly sameKey: number[] = [];
-  /** Hash key (the hash's low 30 bits: a small-integer map key) → last kept entity with it. */
-  private readonly lastWithKey = new Map<number, number>();
+  /** For each kept entity, the previous kept one with the same hash (−1 for none). */
+  private readonly sameHash: number[] = [];
+  /** Open-addressing table: slot → last kept entity whose hash lands there (−1 empty); doubles when half full. */
+  private table = new Int32Array(1024).fill(-1);
 
   constructor(private readonly text: string, private readonly options: ReadDxfOptions) {}
 
@@ -86,8 +86,8 @@ class EntityReader {
     const builder = this.builder ?? this.start(known);
     const order = this.order++;
     if (e.kind !== 'other' && !e.paperSpace) {
-      const key = e.hash & 0x3fffffff;
-      const last = this.lastWithKey.get(key) ?? -1;
+      const slot = this.findSlot(e.hash);
+      const last = this.table[slot];
       const first = last < 0 ? -1 : this.findDuplicate(last, e);
       if (first >= 0) {
         this.problems.push({
@@ -98,21 +98,37 @@ class EntityReader {
         });
         return;
       }
-      this.lastWithKey.set(key, this.starts.length);
+      this.table[slot] = this.starts.length;
       this.starts.push(e.span.start);
       this.ends.push(e.span.end);
       this.lines.push(e.line);
       this.hashes.push(e.hash);
-      this.sameKey.push(last);
+      this.sameHash.push(last);
+      if (2 * this.starts.length > this.table.length) this.grow();
     }
     builder.addTopLevel(e, order);
   }
 
-  /** The earliest kept entity with the same groups as `e`, walking the same-key list from `i`; −1 for none. */
+  /** The slot of `hash`: where its last kept entity is, or the empty slot where it would go. */
+  private findSlot(hash: number): number {
+    const mask = this.table.length - 1;
+    let slot = hash & mask;
+    while (this.table[slot] >= 0 && this.hashes[this.table[slot]] !== hash) slot = (slot + 1) & mask;
+    return slot;
+  }
+
+  /** Doubles the table; its entries are the last kept entity of each hash. */
+  private grow(): void {
+    const old = this.table;
+    this.table = new Int32Array(2 * old.length).fill(-1);
+    for (const kept of old) if (kept >= 0) this.table[this.findSlot(this.hashes[kept])] = kept;
+  }
+
+  /** The earliest kept entity with the same groups as `e`, walking the same-hash list from `i`; −1 for none. */
   private findDuplicate(i: number, e: DxfEntity): number {
     let found = -1;
-    for (; i >= 0; i = this.sameKey[i]) {
-      if (this.hashes[i] === e.hash && haveSameGroups(this.text, { start: this.starts[i], end: this.ends[i] }, e.span)) found = i;
+    for (; i >= 0; i = this.sameHash[i]) {
+      if (haveSameGroups(this.text, { start: this.starts[i], end: this.ends[i] }, e.span)) found = i;
     }
     return found;
   }
@@ -193,6 +209,12 @@ function getValueText(text: string, start: number, end: number): string {
   return text.slice(start, end).trim();
 }
 
+/** The first or last piece of a chain and whether the chain walks it backwards. */
+interface ChainEnd {
+  readonly piece: Piece;
+  readonly reversed: boolean;
+}
+
 /** A contour before numbering: contours are numbered in the order of their first entity. */
 interface Draft {
   readonly order: number;
@@ -231,8 +253,10 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
   }
 
   for (const chain of chains) {
-    const links = chain.links.map((l) => ({ piece: pieces[open[l.piece]], reversed: l.reversed }));
-    const first = links[0];
+    const links = chain.links;
+    const pieceOf = (l: ChainLink) => pieces[open[l.piece]];
+    const first = { piece: pieceOf(links[0]), reversed: links[0].reversed };
+    const last = { piece: pieceOf(links[links.length - 1]), reversed: links[links.length - 1].reversed };
     let segments: Segment[];
     let order = first.piece.order;
     if (links.length === 1 && !first.reversed) {
@@ -240,12 +264,12 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
     } else {
       segments = [];
       for (const l of links) {
-        if (l.reversed) segments.push(...reverseSegments(l.piece.segments));
-        else for (const s of l.piece.segments) segments.push(s);
-        if (l.piece.order < order) order = l.piece.order;
+        const p = pieceOf(l);
+        if (l.reversed) for (const s of reverseSegments(p.segments)) segments.push(s);
+        else for (const s of p.segments) segments.push(s);
+        if (p.order < order) order = p.order;
       }
     }
-    const last = links[links.length - 1];
     const startSpan = first.reversed ? first.piece.endSpan : first.piece.startSpan;
     const endSpan = last.reversed ? last.piece.startSpan : last.piece.endSpan;
     const single = links.length === 1 && first.piece.unflaggedPolyline;
@@ -254,7 +278,7 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
     if (!closed && getGapMm(segments) <= fixMaxGapMm) {
       closeFix = single
         ? getPolylineCloseFix(text, first.piece, segments, eol)
-        : getMoveEndFix(text, links, segments, units);
+        : getMoveEndFix(text, first, last, segments, units);
     }
     drafts.push({ order, piece: first.piece, segments, closed, startSpan, endSpan, closeFix });
   }
@@ -310,9 +334,7 @@ function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[
 }
 
 /** Near-closed chain: move one free end onto the other, editing only that point's value lines. */
-function getMoveEndFix(text: string, links: { piece: Piece; reversed: boolean }[], segments: readonly Segment[], units: UnitsInfo): Fix | undefined {
-  const first = links[0];
-  const last = links[links.length - 1];
+function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, segments: readonly Segment[], units: UnitsInfo): Fix | undefined {
   const startRef = first.reversed ? first.piece.endEdit : first.piece.startEdit;
   const endRef = last.reversed ? last.piece.startEdit : last.piece.endEdit;
   const [ex, ey] = getEnd(segments[segments.length - 1]);

@@ -1,8 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { Arc } from '../types';
-import { chainPieces, reverseSegment } from './chain';
+import { chainPieces as chainFlat, reverseSegment } from './chain';
 
-const piece = (x0: number, y0: number, x1: number, y1: number, group = 'a') => ({ x0, y0, x1, y1, group });
+interface TestPiece { x0: number; y0: number; x1: number; y1: number; group: string }
+const piece = (x0: number, y0: number, x1: number, y1: number, group = 'a'): TestPiece => ({ x0, y0, x1, y1, group });
+/** chainPieces over readable pieces. */
+const chainPieces = (pieces: readonly TestPiece[], tolerance: number) =>
+  chainFlat({ ends: Float64Array.from(pieces.flatMap((p) => [p.x0, p.y0, p.x1, p.y1])), groups: pieces.map((p) => p.group) }, tolerance);
 
 describe('chainPieces', () => {
   it('joins a reversed, shuffled square into one closed chain with each piece once', () => {

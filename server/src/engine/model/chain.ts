@@ -11,12 +11,12 @@
  */
 import type { Segment } from '../types';
 
-/** The two ends of one open piece, in its own drawing direction. */
-export interface ChainPiece {
-  readonly x0: number; readonly y0: number;
-  readonly x1: number; readonly y1: number;
-  /** Pieces join only with pieces of the same group. */
-  readonly group: string;
+/** The open pieces to chain, as flat numbers (a million pieces make no million objects). */
+export interface ChainInput {
+  /** Start x, start y, end x, end y of each piece, in its own drawing direction. */
+  readonly ends: Float64Array;
+  /** The group of each piece: pieces join only with pieces of the same group. */
+  readonly groups: readonly string[];
 }
 
 export interface ChainLink {
@@ -61,16 +61,15 @@ function findRoot(parent: Int32Array, i: number): number {
 }
 
 /** Joins pieces whose ends lie within `tolerance` (> 0, same unit as the coordinates) of each other. */
-export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): ChainResult {
-  const n = pieces.length;
+export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
+  const n = input.groups.length;
   if (n === 0) return { chains: [], branches: [] };
   const endCount = 2 * n;
   const ex = new Float64Array(endCount);
   const ey = new Float64Array(endCount);
-  for (let i = 0; i < n; i++) {
-    const p = pieces[i];
-    ex[2 * i] = p.x0; ey[2 * i] = p.y0;
-    ex[2 * i + 1] = p.x1; ey[2 * i + 1] = p.y1;
+  for (let e = 0; e < endCount; e++) {
+    ex[e] = input.ends[2 * e];
+    ey[e] = input.ends[2 * e + 1];
   }
   const parent = new Int32Array(endCount);
   for (let e = 0; e < endCount; e++) parent[e] = e;
@@ -81,7 +80,7 @@ export function chainPieces(pieces: readonly ChainPiece[], tolerance: number): C
   const groupIds = new Map<string, number>();
   const group = new Int32Array(n);
   for (let i = 0; i < n; i++) {
-    const g = pieces[i].group;
+    const g = input.groups[i];
     let id = groupIds.get(g);
     if (id === undefined) groupIds.set(g, (id = groupIds.size));
     group[i] = id;

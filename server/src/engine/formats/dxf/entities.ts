@@ -15,6 +15,30 @@ export interface PointRef {
   readonly ys: number; readonly ye: number;
 }
 
+/**
+ * Which point's groups in an entity's (or vertex's) text: the first 10/20 pair, the last one, or the
+ * first 11/21 pair (a LINE's end). Pieces keep this instead of value spans, and a fix looks them up.
+ */
+export type PointGroups = 'first10' | 'last10' | 'first11';
+
+/** The value spans of the point `which` names inside `span`, or undefined when its x or y group is missing. */
+export function findPointRef(text: string, span: SourceSpan, which: PointGroups): PointRef | undefined {
+  const xCode = which === 'first11' ? 11 : 10;
+  const sc = new GroupScanner(text, span.start);
+  let found: PointRef | undefined;
+  let x: { s: number; e: number } | undefined;
+  while (sc.offset < span.end && sc.next()) {
+    if (sc.code === xCode) {
+      x = { s: sc.valueStart, e: sc.valueEnd };
+    } else if (sc.code === xCode + 10 && x) {
+      found = { xs: x.s, xe: x.e, ys: sc.valueStart, ye: sc.valueEnd };
+      x = undefined;
+      if (which !== 'last10') return found;
+    }
+  }
+  return found;
+}
+
 export interface EntityBase {
   /** Entity type as written (`LINE`, `LWPOLYLINE`, …). */
   readonly type: string;
@@ -33,26 +57,24 @@ export interface EntityBase {
 
 export interface LwVertex {
   readonly x: number; readonly y: number; readonly bulge: number;
-  readonly ref: PointRef;
   /** From the vertex's 10 code line to the end of its last vertex group (40/41/42/91). */
   readonly span: SourceSpan;
 }
 
 export interface PolyVertex {
   readonly x: number; readonly y: number; readonly z: number; readonly bulge: number; readonly flags: number;
-  readonly ref: PointRef;
   /** The VERTEX entity. */
   readonly span: SourceSpan;
 }
 
 export type DxfEntity = EntityBase & (
-  | { readonly kind: 'line'; readonly x0: number; readonly y0: number; readonly z0: number; readonly x1: number; readonly y1: number; readonly z1: number; readonly ref0: PointRef; readonly ref1: PointRef }
+  | { readonly kind: 'line'; readonly x0: number; readonly y0: number; readonly z0: number; readonly x1: number; readonly y1: number; readonly z1: number }
   | { readonly kind: 'circle'; readonly cx: number; readonly cy: number; readonly cz: number; readonly r: number }
   | { readonly kind: 'arc'; readonly cx: number; readonly cy: number; readonly cz: number; readonly r: number; readonly startDeg: number; readonly endDeg: number }
   | { readonly kind: 'ellipse'; readonly cx: number; readonly cy: number; readonly cz: number; readonly mx: number; readonly my: number; readonly mz: number; readonly ratio: number; readonly t0: number; readonly t1: number }
   | { readonly kind: 'lwpolyline'; readonly flags: number; readonly flagsSpan?: SourceSpan; readonly countSpan?: SourceSpan; readonly insertFlagsAt: number; readonly elevation: number; readonly vertices: readonly LwVertex[] }
   | { readonly kind: 'polyline'; readonly flags: number; readonly flagsSpan?: SourceSpan; readonly insertFlagsAt: number; readonly elevation: number; readonly vertices: readonly PolyVertex[] }
-  | { readonly kind: 'spline'; readonly flags: number; readonly degree: number; readonly knots: readonly number[]; readonly weights: readonly number[]; readonly ctrl: readonly number[]; readonly fitCount: number; readonly firstRef?: PointRef; readonly lastRef?: PointRef }
+  | { readonly kind: 'spline'; readonly flags: number; readonly degree: number; readonly knots: readonly number[]; readonly weights: readonly number[]; readonly ctrl: readonly number[]; readonly fitCount: number }
   | { readonly kind: 'insert'; readonly name: string; readonly x: number; readonly y: number; readonly z: number; readonly sx: number; readonly sy: number; readonly sz: number; readonly rotationDeg: number; readonly columns: number; readonly rows: number; readonly columnSpacing: number; readonly rowSpacing: number }
   | { readonly kind: 'other' }
 );
@@ -367,16 +389,15 @@ class DocumentBuilder {
     if (type === 'VERTEX' && this.polyline) {
       const p = this.polyline;
       let x = 0, y = 0, z = 0, bulge = 0, flags = 0;
-      let xs = start, xe = start, ys = start, ye = start;
       for (let i = 0; i < b.length; i++) {
         const c = b.codes[i];
-        if (c === 10) { x = this.num(i, Number.NaN); xs = b.vs[i]; xe = b.ve[i]; }
-        else if (c === 20) { y = this.num(i, Number.NaN); ys = b.vs[i]; ye = b.ve[i]; }
+        if (c === 10) x = this.num(i, Number.NaN);
+        else if (c === 20) y = this.num(i, Number.NaN);
         else if (c === 30) z = this.num(i, 0);
         else if (c === 42) bulge = this.num(i, 0);
         else if (c === 70) flags = this.num(i, 0);
       }
-      p.vertices.push({ x, y, z, bulge, flags, ref: { xs, xe, ys, ye }, span });
+      p.vertices.push({ x, y, z, bulge, flags, span });
       p.hash = Math.imul(p.hash ^ hash, 0x01000193) >>> 0;
       return;
     }
@@ -410,23 +431,20 @@ class DocumentBuilder {
     switch (type) {
       case 'LINE': {
         let x0 = 0, y0 = 0, z0 = 0, x1 = 0, y1 = 0, z1 = 0;
-        const s = base.span.start;
-        const r0 = { xs: s, xe: s, ys: s, ye: s };
-        const r1 = { xs: s, xe: s, ys: s, ye: s };
         for (let i = 0; i < n; i++) {
           switch (b.codes[i]) {
-            case 10: x0 = this.num(i, Number.NaN); r0.xs = b.vs[i]; r0.xe = b.ve[i]; break;
-            case 20: y0 = this.num(i, Number.NaN); r0.ys = b.vs[i]; r0.ye = b.ve[i]; break;
+            case 10: x0 = this.num(i, Number.NaN); break;
+            case 20: y0 = this.num(i, Number.NaN); break;
             case 30: z0 = this.num(i, 0); break;
-            case 11: x1 = this.num(i, Number.NaN); r1.xs = b.vs[i]; r1.xe = b.ve[i]; break;
-            case 21: y1 = this.num(i, Number.NaN); r1.ys = b.vs[i]; r1.ye = b.ve[i]; break;
+            case 11: x1 = this.num(i, Number.NaN); break;
+            case 21: y1 = this.num(i, Number.NaN); break;
             case 31: z1 = this.num(i, 0); break;
           }
         }
         // Written out (no withBase) for the most common entity: one object of a fixed shape.
         return {
           type: base.type, span: base.span, line: base.line, layer: base.layer, handle: base.handle, paperSpace: base.paperSpace,
-          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'line', x0, y0, z0, x1, y1, z1, ref0: r0, ref1: r1,
+          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'line', x0, y0, z0, x1, y1, z1,
         };
       }
       case 'CIRCLE':
@@ -471,9 +489,9 @@ class DocumentBuilder {
         let countSpan: SourceSpan | undefined;
         let insertFlagsAt = -1;
         const vertices: LwVertex[] = [];
-        let v: { x: number; y: number; bulge: number; ref: { xs: number; xe: number; ys: number; ye: number }; start: number; end: number } | null = null;
+        let v: { x: number; y: number; bulge: number; start: number; end: number } | null = null;
         const pushVertex = () => {
-          if (v) vertices.push({ x: v.x, y: v.y, bulge: v.bulge, ref: v.ref, span: { start: v.start, end: v.end } });
+          if (v) vertices.push({ x: v.x, y: v.y, bulge: v.bulge, span: { start: v.start, end: v.end } });
           v = null;
         };
         for (let i = 0; i < n; i++) {
@@ -481,9 +499,9 @@ class DocumentBuilder {
           if (c === 10) {
             pushVertex();
             if (insertFlagsAt < 0) insertFlagsAt = b.cs[i];
-            v = { x: this.num(i, Number.NaN), y: Number.NaN, bulge: 0, ref: { xs: b.vs[i], xe: b.ve[i], ys: b.vs[i], ye: b.ve[i] }, start: b.cs[i], end: b.pe[i] };
+            v = { x: this.num(i, Number.NaN), y: Number.NaN, bulge: 0, start: b.cs[i], end: b.pe[i] };
           } else if (v && (c === 20 || c === 40 || c === 41 || c === 42 || c === 91)) {
-            if (c === 20) { v.y = this.num(i, Number.NaN); v.ref.ys = b.vs[i]; v.ref.ye = b.ve[i]; }
+            if (c === 20) v.y = this.num(i, Number.NaN);
             else if (c === 42) v.bulge = this.num(i, 0);
             v.end = b.pe[i];
           } else {
@@ -514,8 +532,6 @@ class DocumentBuilder {
         const knots: number[] = [];
         const weights: number[] = [];
         const ctrl: number[] = [];
-        let firstRef: PointRef | undefined;
-        let lastRef: { xs: number; xe: number; ys: number; ye: number } | undefined;
         for (let i = 0; i < n; i++) {
           switch (b.codes[i]) {
             case 70: flags = this.num(i, 0); break;
@@ -525,19 +541,16 @@ class DocumentBuilder {
             case 41: weights.push(this.num(i, Number.NaN)); break;
             case 10:
               ctrl.push(this.num(i, Number.NaN), 0, 0);
-              lastRef = { xs: b.vs[i], xe: b.ve[i], ys: b.vs[i], ye: b.ve[i] };
-              firstRef ??= lastRef;
               break;
             case 20:
               if (ctrl.length > 0) ctrl[ctrl.length - 2] = this.num(i, Number.NaN);
-              if (lastRef) { lastRef.ys = b.vs[i]; lastRef.ye = b.ve[i]; }
               break;
             case 30:
               if (ctrl.length > 0) ctrl[ctrl.length - 1] = this.num(i, 0);
               break;
           }
         }
-        return withBase(base, { kind: 'spline', flags, degree, knots, weights, ctrl, fitCount, firstRef, lastRef });
+        return withBase(base, { kind: 'spline', flags, degree, knots, weights, ctrl, fitCount });
       }
       case 'INSERT': {
         let name = '', x = 0, y = 0, z = 0, sx = 1, sy = 1, sz = 1, rot = 0, columns = 1, rows = 1, colSp = 0, rowSp = 0;

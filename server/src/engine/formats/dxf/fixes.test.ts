@@ -40,6 +40,19 @@ describe('DXF quick fixes, applied and re-analysed', () => {
     expect(ids(analyze(fixed, 'dxf'))).toEqual([]);
   });
 
+  it('near-closed clamped SPLINE: moves its last control point (the curve\'s end) onto the first', () => {
+    // Degree 1, clamped knots: the curve runs through its control points (REFERENCES.md §6.4 SPLINE groups).
+    const text = dxf(['0', 'SPLINE', '8', 'CUT', '70', 8, '71', 1, '72', 6, '73', 4, '40', 0, '40', 0, '40', 1, '40', 2, '40', 3, '40', 3,
+      '10', 0, '20', 0, '30', 0, '10', 10, '20', 0, '30', 0, '10', 10, '20', 10, '30', 0, '10', 0, '20', 0.05, '30', 0]);
+    const f = only(analyze(text, 'dxf'), 'near-closed');
+    const fixed = applyEdits(text, f.fixes![0].edits);
+    expect(fixed).toBe(text.replace('10\n0\n20\n0.05\n', '10\n0\n20\n0\n'));
+    const after = analyze(fixed, 'dxf');
+    expect(ids(after)).toEqual([]);
+    expect(after.contours[0].contour.closed).toBe(true); // its ends now meet, as loose pieces' ends do
+    expect(after.contours[0].metrics.areaMm2).toEqual({ value: 50 }); // right triangle ½·10·10
+  });
+
   it('LWPOLYLINE whose last vertex nearly equals the first: sets the closed flag and drops that vertex', () => {
     const text = dxf(['0', 'LWPOLYLINE', '8', 'CUT', '90', 5, '70', 0, '10', 0, '20', 0, '10', 10, '20', 0, '10', 10, '20', 10, '10', 0, '20', 10, '10', 0.03, '20', 0.04]);
     const f = only(analyze(text, 'dxf'), 'near-closed');

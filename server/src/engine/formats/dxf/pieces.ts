@@ -5,7 +5,7 @@
  */
 import { SPLINE_FIT_TOLERANCE_MM } from '../../geometry/tolerances';
 import type { Arc, Segment, SourceSpan } from '../../types';
-import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointRef, PolyVertex } from './entities';
+import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointGroups, PolyVertex } from './entities';
 import { getSplineSegments } from './spline';
 import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine, mapSegment } from './transform';
 
@@ -35,9 +35,9 @@ export interface Piece {
   readonly layer: string;
   readonly startSpan: SourceSpan;
   readonly endSpan: SourceSpan;
-  /** The value lines of the start and end points' coordinates (file units), when a fix may move them. */
-  readonly startEdit?: PointRef;
-  readonly endEdit?: PointRef;
+  /** Which groups in `startSpan` / `endSpan` hold the start / end point, when a fix may move it. */
+  readonly startEdit?: PointGroups;
+  readonly endEdit?: PointGroups;
   readonly polyline?: PolylineFixInfo;
   /** An LWPOLYLINE or POLYLINE without its closed flag: its ends meeting is still an open contour. */
   readonly unflaggedPolyline: boolean;
@@ -211,7 +211,7 @@ export class PieceBuilder {
         if (e.z0 !== e.z1) return this.outOfPlane(f, e, `its ends lie at different heights (z ${e.z0} and ${e.z1})`);
         // LINE points are WCS (§6.4): the extrusion does not move them.
         return this.push(f, e, layer, [{ kind: 'line', x0: e.x0, y0: e.y0, x1: e.x1, y1: e.y1, span: e.span }], false,
-          { startEdit: e.ref0, endEdit: e.ref1 });
+          { startEdit: 'first10', endEdit: 'first11' });
       }
       case 'circle':
       case 'arc': {
@@ -290,7 +290,7 @@ export class PieceBuilder {
         if (r.capped) this.malformed(f, e, `SPLINE could not be approximated within ${SPLINE_FIT_TOLERANCE_MM} mm; its figures are less accurate`);
         const closed = (e.flags & 1) !== 0 && samePoint(r.segments[0], r.segments[r.segments.length - 1]);
         // A clamped spline starts and ends at its first and last control points, so those can be moved.
-        return this.push(f, e, layer, r.segments, closed, r.clamped ? { startEdit: e.firstRef, endEdit: e.lastRef } : {});
+        return this.push(f, e, layer, r.segments, closed, r.clamped ? { startEdit: 'first10', endEdit: 'last10' } : {});
       }
       case 'insert':
         return this.addInsert(e, layer, f);
@@ -319,8 +319,8 @@ export class PieceBuilder {
     this.push(g, e, layer, segments, closed, {
       startSpan: vertices[0].span,
       endSpan: vertices[n - 1].span,
-      startEdit: vertices[0].ref,
-      endEdit: vertices[n - 1].ref,
+      startEdit: 'first10',
+      endEdit: 'first10',
       polyline: closed ? undefined : fix,
       unflaggedPolyline: !closed,
     });

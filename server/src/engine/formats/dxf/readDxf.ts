@@ -8,9 +8,9 @@
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
-import { chainPieces, reverseSegments, type ChainLink, type ChainPiece } from '../../model/chain';
+import { chainPieces, reverseSegments, type ChainLink } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
-import { parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
+import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
 import { getEnd, PieceBuilder, type Piece } from './pieces';
 import { getDxfUnits } from './units';
@@ -229,19 +229,21 @@ interface Draft {
 function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo, eol: string, fixMaxGapMm: number, problems: RawFinding[]): Contour[] {
   const drafts: Draft[] = [];
   const open: number[] = [];
-  const inputs: ChainPiece[] = [];
   for (let i = 0; i < pieces.length; i++) {
     const p = pieces[i];
     if (p.segments.length === 0) continue;
-    if (p.closed) {
-      drafts.push({ order: p.order, piece: p, segments: p.segments, closed: true, startSpan: p.startSpan, endSpan: p.endSpan });
-    } else {
-      open.push(i);
-      const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
-      inputs.push({ x0: p.segments[0].x0, y0: p.segments[0].y0, x1, y1, group: p.layer });
-    }
+    if (p.closed) drafts.push({ order: p.order, piece: p, segments: p.segments, closed: true, startSpan: p.startSpan, endSpan: p.endSpan });
+    else open.push(i);
   }
-  const { chains, branches } = chainPieces(inputs, CHAIN_TOLERANCE_MM);
+  const ends = new Float64Array(4 * open.length);
+  const groups: string[] = new Array<string>(open.length);
+  for (let k = 0; k < open.length; k++) {
+    const p = pieces[open[k]];
+    const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
+    ends[4 * k] = p.segments[0].x0; ends[4 * k + 1] = p.segments[0].y0; ends[4 * k + 2] = x1; ends[4 * k + 3] = y1;
+    groups[k] = p.layer;
+  }
+  const { chains, branches } = chainPieces({ ends, groups }, CHAIN_TOLERANCE_MM);
 
   for (const br of branches) {
     const ps = br.pieces.map((k) => pieces[open[k]]);
@@ -335,8 +337,13 @@ function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[
 
 /** Near-closed chain: move one free end onto the other, editing only that point's value lines. */
 function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, segments: readonly Segment[], units: UnitsInfo): Fix | undefined {
-  const startRef = first.reversed ? first.piece.endEdit : first.piece.startEdit;
-  const endRef = last.reversed ? last.piece.startEdit : last.piece.endEdit;
+  /** The value spans of a chain end's point, looked up in its entity's text. */
+  const refAt = (end: ChainEnd, atPieceEnd: boolean): PointRef | undefined => {
+    const which = atPieceEnd ? end.piece.endEdit : end.piece.startEdit;
+    return which && findPointRef(text, atPieceEnd ? end.piece.endSpan : end.piece.startSpan, which);
+  };
+  const startRef = refAt(first, first.reversed);
+  const endRef = refAt(last, !last.reversed);
   const [ex, ey] = getEnd(segments[segments.length - 1]);
   const sx = segments[0].x0, sy = segments[0].y0;
   const target = (ref: PointRef | undefined, xMm: number, yMm: number): [string, string] =>
@@ -357,7 +364,6 @@ function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, segments: 
   } else {
     return undefined;
   }
-  if (moved.xs === moved.xe || moved.ys === moved.ye) return undefined;
   const gapMm = Math.hypot(ex - sx, ey - sy);
   return {
     title: `Move the end of the ${element} onto the other end of the contour (${formatNumber(gapMm)} mm away)`,

@@ -1,16 +1,21 @@
 /**
- * Self-intersection speed on one huge contour, side by side (run: `npx vitest bench --run test/bench/geometry.bench.ts`).
- * One SVG path of n line, cubic or arc segments around a wavy circle (simple: no crossings), n = 1e4
- * and 1e5. Compared in one run: the floor (XML parse with saxes + a plain number scan of the path
- * data), our self-intersection search on the read contour, our full analysis of the file, and paper.js
- * (path import + length + area + self-intersections). vitest prints the ratios; crossing counts of
- * ours and paper's are printed once per size (the contour has none).
+ * Full analysis of one huge contour against the floor and paper.js, side by side in one run
+ * (run: `npx vitest bench --run test/bench/geometry.bench.ts`).
+ *
+ * One SVG path of n line, cubic or arc segments around a wavy circle (simple: no crossings), n = 1e4,
+ * 1e5 and 1e6. Timed in one process, in turn, for each n and kind:
+ * - floor: XML parse with saxes + a plain number scan of the path data (no model, no geometry);
+ * - ours: `analyze()` — read, measures, self-intersections, double cuts, nesting, roundness and hull,
+ *   the checks;
+ * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
+ * Printed: median times, ours/floor and paper/ours, crossing counts (the contour has none), and the
+ * log-log slope of ours from 1e4 to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3×
+ * ours, slope ≤ 1.1. The machine is noisy: compare ratios, not absolute times between runs.
+ * Paper at 1e6 takes ~12 s a run, so it runs once there; set LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
  */
 import paper from 'paper';
 import { SaxesParser } from 'saxes';
 import { bench, describe } from 'vitest';
-import { readSvg } from '../../server/src/engine/formats/svg/readSvg';
-import { findSelfIntersections } from '../../server/src/engine/geometry/intersect';
 import { analyze } from '../../server/src/engine/index';
 
 type Kind = 'line' | 'cubic' | 'arc';
@@ -57,6 +62,11 @@ function floor(text: string): number {
   return sum;
 }
 
+function ours(text: string): number {
+  const r = analyze(text, 'svg', { assumedUnit: 'mm' });
+  return r.contours[0]!.geometry.selfIntersections.filter((x) => x.kind === 'crossing').length;
+}
+
 function paperFull(d: string): number {
   const path = new paper.Path(d);
   void path.length;
@@ -68,18 +78,60 @@ function paperFull(d: string): number {
 
 paper.setup(new paper.Size(100, 100));
 
-for (const n of [1e4, 1e5]) {
-  for (const kind of ['line', 'cubic', 'arc'] as const) {
+/** Median wall time (ms) of `runs` calls, and the last call's value. */
+function time<T>(runs: number, fn: () => T): { ms: number; value: T } {
+  const times: number[] = [];
+  let value!: T;
+  for (let i = 0; i < runs; i++) {
+    const t = performance.now();
+    value = fn();
+    times.push(performance.now() - t);
+  }
+  times.sort((a, b) => a - b);
+  return { ms: times[Math.floor(times.length / 2)]!, value };
+}
+
+const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
+const sizes = [1e4, 1e5, 1e6].filter((n) => n <= maxN);
+const kinds: readonly Kind[] = ['line', 'cubic', 'arc'];
+const oursMs = new Map<string, number>();
+const fmt = (ms: number) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(0)} ms`);
+
+for (const n of sizes) {
+  for (const kind of kinds) {
     const d = makePathData(n, kind);
     const text = wrap(d);
-    const contour = readSvg(text, { assumedUnit: 'mm' }).contours[0]!;
-    const ours = findSelfIntersections(contour);
-    console.log(`[geometry.bench] n=${n} ${kind}: ours ${ours.intersections.length} intersections, ${ours.overlaps.length} overlaps, ${ours.unresolved.length} unresolved; paper ${n <= 1e4 ? paperFull(d) : 'see timing'} crossings`);
-    describe(`one contour of ${n} ${kind} segments`, () => {
-      bench('floor (saxes + number scan)', () => { floor(text); }, { iterations: 3, time: 0 });
-      bench('ours: self-intersections of the read contour', () => { findSelfIntersections(contour); }, { iterations: 3, time: 0 });
-      bench('ours: full analysis', () => { analyze(text, 'svg', { assumedUnit: 'mm' }); }, { iterations: 3, time: 0 });
-      bench('paper: import + length + area + self-intersections', () => { paperFull(d); }, { iterations: 2, time: 0 });
-    });
+    const runs = n >= 1e6 ? 1 : 3;
+    ours(text); // warm-up: the first call compiles the hot paths
+    const fl = time(runs, () => floor(text));
+    const us = time(runs, () => ours(text));
+    const pa = time(n >= 1e5 ? 1 : 3, () => paperFull(d));
+    oursMs.set(`${kind} ${n}`, us.ms);
+    console.log(
+      `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +
+        ` | ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), paper/ours ${(pa.ms / us.ms).toFixed(2)} (target ≥ 3)` +
+        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0)`,
+    );
   }
+}
+// The slope over the whole range (the issue's figure), and per decade: a noisy small size can hide a
+// super-linear last decade in the end-to-end figure.
+const slope = (kind: Kind, lo: number, hi: number) => Math.log(oursMs.get(`${kind} ${hi}`)! / oursMs.get(`${kind} ${lo}`)!) / Math.log(hi / lo);
+if (sizes.length > 1) {
+  const [lo, hi] = [sizes[0]!, sizes[sizes.length - 1]!];
+  for (const kind of kinds) {
+    const decades = sizes.slice(1).map((n, i) => `${sizes[i]!.toExponential(0)}→${n.toExponential(0)} ${slope(kind, sizes[i]!, n).toFixed(2)}`);
+    console.log(`[geometry.bench] ${kind}: log-log slope of ours ${lo.toExponential(0)}→${hi.toExponential(0)} = ${slope(kind, lo, hi).toFixed(2)} (target ≤ 1.1); per decade ${decades.join(', ')}`);
+  }
+}
+
+// vitest's own side-by-side table, at 1e4 (the figures above are the ones to read).
+for (const kind of kinds) {
+  const d = makePathData(1e4, kind);
+  const text = wrap(d);
+  describe(`one contour of 1e4 ${kind} segments`, () => {
+    bench('floor (saxes + number scan)', () => { floor(text); }, { iterations: 3, time: 0 });
+    bench('ours: full analysis', () => { ours(text); }, { iterations: 3, time: 0 });
+    bench('paper: import + length + area + self-intersections', () => { paperFull(d); }, { iterations: 3, time: 0 });
+  });
 }

@@ -91,6 +91,14 @@ describe('getContourCard', () => {
     expect(row(c, 'R − ρ')).toContain('Bonnesen bound — (the contour crosses itself');
   });
 
+  it('says whether a hole turns opposite its outline (information; orientation as in types.ts)', () => {
+    // A 2 × 4 hole inside the 10 × 20 plate: drawn cw like the plate, then ccw (signed area negated).
+    const sameWay = { ...rect, contour: makeContour({ index: 1, span: pathSpan }), metrics: rectangleMetrics(2, 4), geometry: { ...rectangleGeometry(2, 4), parent: 0, depth: 1 } };
+    const otherWay = { ...sameWay, metrics: { ...sameWay.metrics, signedAreaMm2: { value: -8 }, orientation: 'ccw' as const } };
+    expect(row(getContourCard(sameWay, makeResult([rect, sameWay])), 'Nesting')).toBe('hole in contour #0, turning the same way (cw)');
+    expect(row(getContourCard(otherWay, makeResult([rect, otherWay])), 'Nesting')).toBe('hole in contour #0, turning the other way (ccw in cw)');
+  });
+
   it('shows R − ρ with the error bounds of both radii, so a flattened circle\'s residue is not read as a breach of Bonnesen', () => {
     // A circle r = 20 flattened within δ = 5.63e-5: ρ = 20 − δ ± δ, R = 20 ± δ (hull.ts), Bonnesen bound 0 (§1.3: D = 0).
     const delta = 5.63e-5;

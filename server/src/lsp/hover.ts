@@ -45,15 +45,21 @@ function circle(m: MeasuredCircle): string {
   return `${formatNumber(valueMm)}${bound} mm, centre (${formatNumber(centreXMm)}, ${formatNumber(centreYMm)})`;
 }
 
-function describeNesting(g: ContourGeometry, closed: boolean): string {
-  if (g.parent === null) return closed ? 'outer boundary' : 'not inside any closed contour';
-  if (!closed) return `inside contour #${g.parent}`;
-  return g.depth % 2 === 1 ? `hole in contour #${g.parent}` : `island inside contour #${g.parent}`;
+/** Where the contour lies; for a hole, whether it turns opposite its outline (information only). */
+function describeNesting(entry: CardSource, result: AnalysisFigures): string {
+  const { geometry: g, metrics } = entry;
+  if (g.parent === null) return metrics.closed ? 'outer boundary' : 'not inside any closed contour';
+  if (!metrics.closed) return `inside contour #${g.parent}`;
+  if (g.depth % 2 === 0) return `island inside contour #${g.parent}`;
+  const outer = result.contours.find((c) => c.contour.index === g.parent)?.metrics.orientation ?? null;
+  const turn = metrics.orientation === null || outer === null ? ''
+    : metrics.orientation === outer ? `, turning the same way (${outer})` : `, turning the other way (${metrics.orientation} in ${outer})`;
+  return `hole in contour #${g.parent}${turn}`;
 }
 
 /** Rows for the file-wide geometry: roundness (REFERENCES.md §1.2–1.4, §3), hull, nesting, self-crossing. */
-function geometryRows(entry: CardSource): CardRow[] {
-  const { metrics, geometry: g } = entry;
+function geometryRows(entry: CardSource, result: AnalysisFigures): CardRow[] {
+  const { geometry: g } = entry;
   const r = g.roundness;
   const f = (v: number) => formatNumber(v);
   // R − ρ carries both radii's error bounds; the Bonnesen bound is exact up to the deficit's rounding.
@@ -69,7 +75,7 @@ function geometryRows(entry: CardSource): CardRow[] {
     { label: 'R − ρ', value: gap },
     { label: 'Convex hull', value: `area ${f(g.hull.areaMm2)} mm², perimeter ${f(g.hull.perimeterMm)} mm` },
     { label: 'Convexity A/A_hull', value: measured(g.hull.convexity, '') },
-    { label: 'Nesting', value: describeNesting(g, metrics.closed) },
+    { label: 'Nesting', value: describeNesting(entry, result) },
   ];
   if (r.selfCrossing) {
     const crossings = g.selfIntersections.filter((x) => x.kind === 'crossing').length;
@@ -120,7 +126,7 @@ export function getContourCard(entry: CardSource, result: AnalysisFigures): Cont
       { label: 'Area', value: measured(metrics.areaMm2, 'mm²') },
       { label: 'Roundness Q = 4πA/L²', value: measured(metrics.q, '') },
       { label: 'Deficit L² − 4πA', value: measured(metrics.deficitMm2, 'mm²') },
-      ...geometryRows(entry),
+      ...geometryRows(entry, result),
       { label: 'Bounding box', value: bbox },
       { label: 'Units', value: describeUnits(result.units) },
     ],

@@ -1,8 +1,9 @@
 /**
  * The DXF reader: ASCII DXF text → contours in WCS millimetres (y up), units, and reader problems.
  *
- * Steps: binary sentinel test (§6.6) → group scan and entity records (groups.ts, entities.ts) → units
- * from $INSUNITS (units.ts) → exact duplicates set aside → entities to pieces through OCS and block
+ * Steps: binary sentinel test (§6.6) → group scan and entity records (groups.ts, entities.ts), each
+ * top-level entity passed on as soon as it is read → units from $INSUNITS (units.ts) → exact duplicates
+ * set aside → entities on hidden or ignored layers skipped, the rest to pieces through OCS and block
  * inserts (pieces.ts) → loose open pieces chained end to end per layer (model/chain.ts) → contours,
  * with the close fixes that edit only the value lines they must.
  */

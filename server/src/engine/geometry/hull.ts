@@ -92,15 +92,11 @@ export interface HullFigures {
 }
 
 /**
- * Convex hull figures of a contour. For curves the hull of the flattened polyline (deviation δ) lies
- * inside the true hull, which lies inside it offset by δ: area error ≤ δ·P + πδ², perimeter ≤ 2πδ
- * (Steiner's formula for parallel convex bodies; [src: Steiner 1840 — from memory]).
+ * Convex hull figures of a contour flattened by `getContourPolyline`. For curves the hull of the
+ * polyline (deviation δ) lies inside the true hull, which lies inside it offset by δ: area error
+ * ≤ δ·P + πδ², perimeter ≤ 2πδ (Steiner's formula for parallel convex bodies; [src: Steiner 1840 —
+ * from memory]).
  */
-export function getHull(contour: Contour, toleranceMm: number): HullFigures {
-  return getPolylineHull(getContourPolyline(contour, toleranceMm));
-}
-
-/** Convex hull figures of an already flattened contour (same bounds as `getHull`). */
 export function getPolylineHull(poly: Polyline): HullFigures {
   const h = getConvexHull(poly.points);
   let a = 0, per = 0;

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { contourFromSegments, ellipseArc, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import { measureContour } from './measure';
-import { getConvexHull, getHull } from './hull';
+import { getContourPolyline, getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
 import { findSelfIntersections } from './intersect';
 import { getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
@@ -75,7 +75,7 @@ describe('roundness check values', () => {
   });
 
   it('gives a square hull area 1, perimeter 4 and convexity 1; an L-shape convexity 3/3.5 (by hand)', () => {
-    expect(getHull(polygon([[0, 0], [1, 0], [1, 1], [0, 1]]), 0)).toMatchObject({ areaMm2: 1, perimeterMm: 4 });
+    expect(getPolylineHull(getContourPolyline(polygon([[0, 0], [1, 0], [1, 1], [0, 1]]), 0))).toMatchObject({ areaMm2: 1, perimeterMm: 4 });
     const r = roundnessOf([[0, 0], [2, 0], [2, 1], [1, 1], [1, 2], [0, 2]]);
     expect(r.convexity.value).toBeCloseTo(3 / 3.5, 12);
   });

@@ -307,13 +307,13 @@ describe('loopwise check on the other samples', () => {
 describe('loopwise check on samples/fernhollow-lamp-panel-loose.dxf (DXF, layers)', () => {
   it('lists the TEXT on layer ENGRAVE as not analysed by default', async () => {
     const f = await report('fernhollow-lamp-panel-loose.dxf');
-    expect(f.problems.filter((p) => p.id === 'not-analysed').map((p) => p.message)).toEqual(['Not analysed: 1 TEXT entities (not cutting outlines).']);
+    expect(f.problems.filter((p) => p.id === 'not-analysed').map((p) => p.message)).toEqual(['Not analysed: TEXT (1 entity; not cutting outlines).']);
   });
 
   it('skips a layer named by --ignore-layer, in any case, and lists the layer instead', async () => {
     const f = await report('fernhollow-lamp-panel-loose.dxf', '--ignore-layer', 'engrave');
     expect(f.problems.filter((p) => p.id === 'not-analysed').map((p) => p.message)).toEqual([
-      'Layer ENGRAVE is ignored by the settings: its 1 entities are not analysed.',
+      'Layer ENGRAVE is ignored by the settings: 1 entity not analysed.',
     ]);
     expect(f.contours).toHaveLength(2); // the chained edge and the window, as without the flag
   });

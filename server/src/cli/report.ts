@@ -104,8 +104,12 @@ function table(rows: readonly (readonly string[])[], rightAligned: ReadonlySet<n
   );
 }
 
+/** "1 part", "2 parts". */
+function plural(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}
+
 function describeSummary(s: FileSummary): string {
-  const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   return `${plural(s.contours, 'contour')}, ${plural(s.parts, 'part')}, ${plural(s.pierces, 'pierce')}, ` +
     `cut length ${formatNumber(s.cutLengthMm)} mm, net area ${formatNumber(s.netAreaMm2)} mm²`;
 }
@@ -197,9 +201,8 @@ export function renderText(files: readonly FileReport[]): string {
     }
     out.push('');
   }
-  const fileWord = files.length === 1 ? 'file' : 'files';
   out.push(
-    `${files.length} ${fileWord}, ${contourCount} contours: ${counts.error} errors, ${counts.warning} warnings, ${counts.info} notes`,
+    `${plural(files.length, 'file')}, ${plural(contourCount, 'contour')}: ${plural(counts.error, 'error')}, ${plural(counts.warning, 'warning')}, ${plural(counts.info, 'note')}`,
   );
   return out.join('\n') + '\n';
 }

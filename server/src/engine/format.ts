@@ -17,11 +17,15 @@ export function formatNumber(v: number, digits = 3): string {
   return s === '-0' ? '0' : s;
 }
 
-/** Replaces `{name}` in a template by the formatted value of `data[name]`. */
+/**
+ * Replaces `{name}` in a template by the formatted value of `data[name]`, and `{name|one|many}` by the
+ * number followed by the word that agrees with it ("1 entity", "2 entities").
+ */
 export function fillTemplate(template: string, data: Readonly<Record<string, string | number | boolean>>): string {
-  return template.replace(/\{(\w+)\}/g, (whole, name: string) => {
+  return template.replace(/\{(\w+)(?:\|([^|}]*)\|([^|}]*))?\}/g, (whole, name: string, one?: string, many?: string) => {
     const v = data[name];
     if (v === undefined) return whole;
-    return typeof v === 'number' ? formatNumber(v) : String(v);
+    const text = typeof v === 'number' ? formatNumber(v) : String(v);
+    return one === undefined ? text : `${text} ${v === 1 ? one : many}`;
   });
 }

@@ -13,8 +13,8 @@ describe('not-analysed', () => {
     const r = analyze(dxf(['0', 'MTEXT', '8', 'CUT', '1', 'a'], ['0', 'MTEXT', '8', 'CUT', '1', 'b'], ['0', 'DIMENSION', '8', 'CUT']), 'dxf');
     const f = r.findings.filter((x) => x.checkId === 'not-analysed');
     expect(f.map((x) => [x.severity, x.message])).toEqual([
-      ['info', 'Not analysed: 2 MTEXT entities (not cutting outlines).'],
-      ['info', 'Not analysed: 1 DIMENSION entities (not cutting outlines).'],
+      ['info', 'Not analysed: MTEXT (2 entities; not cutting outlines).'],
+      ['info', 'Not analysed: DIMENSION (1 entity; not cutting outlines).'],
     ]);
   });
 
@@ -31,8 +31,8 @@ describe('not-analysed', () => {
     expect(r.contours.map((c) => c.contour.layer)).toEqual(['CUT']);
     const f = r.findings.filter((x) => x.checkId === 'not-analysed');
     expect(f.map((x) => x.message)).toEqual([
-      'Layer NOTES is frozen: its 1 entities are not analysed.',
-      'Layer HIDDEN is off: its 2 entities are not analysed.',
+      'Layer NOTES is frozen: 1 entity not analysed.',
+      'Layer HIDDEN is off: 2 entities not analysed.',
     ]);
     expect(text.slice(f[0].span.start, f[0].span.end)).toMatch(/^0\nLAYER\n2\nNOTES\n/);
   });
@@ -43,7 +43,7 @@ describe('not-analysed', () => {
     const r = analyze(text, 'dxf', { ignoredLayers: ['engrave'] });
     expect(r.contours.map((c) => c.contour.layer)).toEqual(['CUT']);
     const f = r.findings.filter((x) => x.checkId === 'not-analysed');
-    expect(f.map((x) => x.message)).toEqual(['Layer ENGRAVE is ignored by the settings: its 1 entities are not analysed.', 'Layer Engrave is ignored by the settings: its 1 entities are not analysed.']);
+    expect(f.map((x) => x.message)).toEqual(['Layer ENGRAVE is ignored by the settings: 1 entity not analysed.', 'Layer Engrave is ignored by the settings: 1 entity not analysed.']);
     expect(f[0].severity).toBe('info');
     // Without the setting both engraving circles are outlines.
     expect(analyze(text, 'dxf').contours).toHaveLength(3);

@@ -11,9 +11,9 @@ export default defineCheck({
   description: 'Entities that are not outlines (text, hatches, dimensions, points, meshes, …), entities on frozen, switched-off or ignored layers and paper-space entities are listed but not analysed.',
   defaultSeverity: 'info',
   messages: {
-    entities: 'Not analysed: {count} {entity} entities (not cutting outlines).',
-    hiddenLayer: 'Layer {layer} is {state}: its {count} entities are not analysed.',
-    ignoredLayer: 'Layer {layer} is ignored by the settings: its {count} entities are not analysed.',
-    paperSpace: 'Not analysed: {count} paper-space entities (only model space holds outlines).',
+    entities: 'Not analysed: {entity} ({count|entity|entities}; not cutting outlines).',
+    hiddenLayer: 'Layer {layer} is {state}: {count|entity|entities} not analysed.',
+    ignoredLayer: 'Layer {layer} is ignored by the settings: {count|entity|entities} not analysed.',
+    paperSpace: 'Not analysed: {count|paper-space entity|paper-space entities} (only model space holds outlines).',
   },
 });

@@ -253,6 +253,25 @@ describe('the language server over stdio', () => {
     s.settings = {};
   });
 
+  it('skips the DXF layers named in the ignoredLayers setting once the configuration changes', async () => {
+    // An open LINE on layer ENGRAVE ($INSUNITS 4 = mm, DXF reference "HEADER section group codes").
+    const dxfUri = 'file:///work/engrave.dxf';
+    const text = ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES',
+      '0', 'LINE', '8', 'ENGRAVE', '10', '0', '20', '0', '11', '30', '21', '0', '0', 'ENDSEC', '0', 'EOF', ''].join('\n');
+    const before = await open(dxfUri, text);
+    expect(byCode(before.diagnostics, 'open-contour')).toHaveLength(1);
+    s.settings = { ignoredLayers: ['engrave'] };
+    const republished = s.nextDiagnostics(dxfUri, (p) => byCode(p.diagnostics, 'open-contour').length === 0);
+    await s.connection.sendNotification(DidChangeConfigurationNotification.type, { settings: { loopwise: s.settings } });
+    const after = await republished;
+    expect(byCode(after.diagnostics, 'not-analysed').map((d) => d.message)).toEqual(['Layer ENGRAVE is ignored by the settings: 1 entity not analysed.']);
+    s.settings = {};
+    const restored = s.nextDiagnostics(dxfUri, (p) => byCode(p.diagnostics, 'open-contour').length === 1);
+    await s.connection.sendNotification(DidChangeConfigurationNotification.type, { settings: { loopwise: s.settings } });
+    await restored;
+    await s.connection.sendNotification(DidCloseTextDocumentNotification.type, { textDocument: { uri: dxfUri } });
+  });
+
   it('re-analyses every open file on request and counts their problems', async () => {
     const result = await s.connection.sendRequest(ReanalyzeRequest, {});
     expect(result).toEqual({ documents: 1, findings: 2 });

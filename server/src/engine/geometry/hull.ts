@@ -17,6 +17,18 @@ export interface Polyline {
   readonly points: readonly (readonly [number, number])[];
   /** Largest distance between the contour and the polyline (0 when the contour has only lines). */
   readonly deviationMm: number;
+  /** The contour's monotone pieces in order, each with its chords' first vertex in `points`. */
+  readonly pieces: readonly PolylinePiece[];
+}
+
+export interface PolylinePiece {
+  /** Index in `points` of the piece's start; its chords run to the next piece's start (cyclic). */
+  readonly first: number;
+  /** For an arc whose ellipse is a circle within the flattening tolerance: that circle, with
+   *  `deviationMm` the largest distance between the arc and it (half the semi-axes' difference). */
+  readonly circle: { readonly cx: number; readonly cy: number; readonly r: number; readonly deviationMm: number } | null;
+  /** Largest distance between the piece and its chords. */
+  readonly deviationMm: number;
 }
 
 /** Most chords for one curved piece: bounds the work on huge curves (the bound δ is then raised and reported). */
@@ -27,19 +39,28 @@ export function getContourPolyline(contour: Contour, toleranceMm: number): Polyl
   const P = buildPieces([{ ...contour, closed: true }], 0);
   const b = P.buf;
   const pts: [number, number][] = [];
+  const pieces: PolylinePiece[] = [];
   let deviation = 0;
   for (let i = 0; i < P.count; i++) {
     const o = i * STRIDE;
     const kind = b[o]!;
     let m = 1;
+    let pieceDeviation = 0;
+    let circle: PolylinePiece['circle'] = null;
     if (kind !== KIND_LINE) {
       if (kind === KIND_ARC) {
-        const r = Math.max(Math.hypot(b[o + 10]!, b[o + 11]!), Math.hypot(b[o + 12]!, b[o + 13]!));
+        const ux = b[o + 10]!, uy = b[o + 11]!, vx = b[o + 12]!, vy = b[o + 13]!;
+        // Semi-axes a ≥ b: square roots of the eigenvalues of the Gram matrix of U and V.
+        const uu = ux * ux + uy * uy, vv = vx * vx + vy * vy, uv = ux * vx + uy * vy;
+        const root = Math.hypot((uu - vv) / 2, uv);
+        const a = Math.sqrt((uu + vv) / 2 + root), bMinor = Math.sqrt(Math.max(0, (uu + vv) / 2 - root));
+        if (a - bMinor <= toleranceMm) circle = { cx: b[o + 8]!, cy: b[o + 9]!, r: (a + bMinor) / 2, deviationMm: (a - bMinor) / 2 };
+        const r = a;
         const dth = Math.abs(b[o + 15]! - b[o + 14]!);
         const half = toleranceMm >= r ? Math.PI : Math.acos(1 - toleranceMm / r);
         m = Math.max(1, Math.ceil(dth / (2 * half)));
         if (m > MAX_CHORDS_PER_PIECE) m = MAX_CHORDS_PER_PIECE;
-        deviation = Math.max(deviation, r * (1 - Math.cos(dth / (2 * m))));
+        pieceDeviation = r * (1 - Math.cos(dth / (2 * m)));
       } else {
         const cps = kind === KIND_QUAD
           ? [b[o + 4]!, b[o + 5]!, b[o + 8]!, b[o + 9]!, b[o + 6]!, b[o + 7]!]
@@ -51,12 +72,14 @@ export function getContourPolyline(contour: Contour, toleranceMm: number): Polyl
         }
         m = Math.max(1, Math.ceil(Math.sqrt((d * (d - 1) * M) / (8 * toleranceMm))));
         if (m > MAX_CHORDS_PER_PIECE) m = MAX_CHORDS_PER_PIECE;
-        deviation = Math.max(deviation, (d * (d - 1) * M) / (8 * m * m));
+        pieceDeviation = (d * (d - 1) * M) / (8 * m * m);
       }
     }
+    deviation = Math.max(deviation, pieceDeviation);
+    pieces.push({ first: pts.length, circle, deviationMm: pieceDeviation });
     for (let k = 0; k < m; k++) pts.push(getPiecePoint(b, i, k / m));
   }
-  return { points: pts, deviationMm: deviation };
+  return { points: pts, deviationMm: deviation, pieces };
 }
 
 /** Convex hull, counter-clockwise in y-up axes, no collinear vertices. */

@@ -19,7 +19,7 @@
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getContourPolyline, getPolylineHull } from './hull';
+import { getContourPolyline, getPolylineHull, type Polyline } from './hull';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -31,11 +31,12 @@ export const ROUNDNESS_FLATTENING_RELATIVE = 1e-5;
 export const MAX_ROUNDNESS_CELLS = 2000;
 /** Most polyline vertices for the slab integral ∬w² dA (its cost is quadratic). */
 export const MAX_WINDING_INTEGRAL_VERTICES = 20000;
-/** Most flattened vertices for the inradius and minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS
- *  cells queries the edge index, but near a medial axis many edges are almost equally far, so a cell
- *  still visits a share of them growing with the vertex count. Above it those figures are undefined
- *  with this reason; the circumradius and hull are still given. */
-export const MAX_ROUNDNESS_VERTICES = 2000;
+/** Most search pieces (lines, chords of flattened curves, arcs of circles) for the inradius and
+ *  minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS cells queries the piece index, but near
+ *  a medial axis many pieces are almost equally far, so a cell still visits a share of them growing
+ *  with the piece count. Above it those figures are undefined with this reason; the circumradius and
+ *  hull are still given. */
+export const MAX_ROUNDNESS_PIECES = 2000;
 
 type Pt = readonly [number, number];
 
@@ -85,65 +86,261 @@ export function getSmallestEnclosingCircle(points: readonly Pt[]): Circle {
   return c;
 }
 
-// ---------------------------------------------------------------- distances
-
-function distToSegment(x: number, y: number, a: Pt, b: Pt): number {
-  const dx = b[0] - a[0], dy = b[1] - a[1];
-  const l2 = dx * dx + dy * dy;
-  let t = l2 === 0 ? 0 : ((x - a[0]) * dx + (y - a[1]) * dy) / l2;
-  t = t < 0 ? 0 : t > 1 ? 1 : t;
-  return Math.hypot(x - a[0] - t * dx, y - a[1] - t * dy);
-}
+// ---------------------------------------------------------------- the outline searched
 
 /**
- * Distance from a point to a closed polyline and whether the point is inside (even-odd), answered
- * from a flatbush index of the edges, with the same results as scanning every edge:
- * - nearest edge: the edge nearest by box gives an upper bound d0 on the distance; every edge at
- *   distance ≤ d0 has its box within the square of half-side d0, so the minimum over the edges found
- *   there is exact;
- * - inside: an edge that crosses the ray to the right of the point has a box meeting that ray.
+ * One piece of the outline as the searches see it: a line segment from A to B (A = B for a point of
+ * a point set), or an arc of a circle (centre C, radius r) over the sector from the directions of A
+ * to B, plus the end points A and B themselves. Circle pieces come from monotone arc pieces, so their
+ * sector is at most a quarter turn; `ccw` says whether A → B turns counter-clockwise (y-up).
  */
-export function createPolylineDistance(pts: readonly Pt[]): (x: number, y: number) => { d: number; inside: boolean } {
-  const n = pts.length;
-  if (n === 0) return () => ({ d: Infinity, inside: false });
-  const index = new Flatbush(n);
-  for (let i = 0; i < n; i++) {
-    const a = pts[(i + n - 1) % n]!, b = pts[i]!;
-    index.add(Math.min(a[0], b[0]), Math.min(a[1], b[1]), Math.max(a[0], b[0]), Math.max(a[1], b[1]));
-  }
-  index.finish();
-  const edge = (i: number): [Pt, Pt] => [pts[(i + n - 1) % n]!, pts[i]!];
-  return (x, y) => {
-    const [near] = index.neighbors(x, y, 1);
-    const [a0, b0] = edge(near!);
-    const d0 = distToSegment(x, y, a0, b0);
-    let d = d0;
-    for (const i of index.search(x - d0, y - d0, x + d0, y + d0)) {
-      const [a, b] = edge(i);
-      d = Math.min(d, distToSegment(x, y, a, b));
-    }
-    let inside = false;
-    for (const i of index.search(x, y, index.maxX, y)) {
-      const [a, b] = edge(i);
-      if ((a[1] > y) !== (b[1] > y) && x < a[0] + ((y - a[1]) * (b[0] - a[0])) / (b[1] - a[1])) inside = !inside;
-    }
-    return { d, inside };
+interface SearchPiece {
+  readonly ax: number; readonly ay: number; readonly bx: number; readonly by: number;
+  readonly circle: { readonly cx: number; readonly cy: number; readonly r: number; readonly ccw: boolean } | null;
+}
+
+/** The outline as search pieces, and the largest distance between it and the contour (δ). */
+export interface SearchOutline {
+  readonly pieces: readonly SearchPiece[];
+  readonly deviationMm: number;
+}
+
+/** A closed polyline (or, with `asPoints`, a point set) as search pieces. */
+export function outlineFromPoints(points: readonly Pt[], asPoints = false): SearchOutline {
+  const n = points.length;
+  return {
+    pieces: points.map((a, i) => {
+      const b = asPoints ? a : points[(i + 1) % n]!;
+      return { ax: a[0], ay: a[1], bx: b[0], by: b[1], circle: null };
+    }),
+    deviationMm: 0,
   };
 }
 
 /**
- * Largest distance from a point to a point set, exact: the points are grouped in runs of
+ * A flattened contour as search pieces: arcs of circles stay exact arcs (their chords are dropped),
+ * everything else is its chords. δ is the largest deviation of a flattened piece or of an arc from
+ * its circle, so distances to the outline are within ±δ of distances to the contour.
+ */
+export function outlineFromPolyline(poly: Polyline): SearchOutline {
+  const pts = poly.points, n = pts.length;
+  const pieces: SearchPiece[] = [];
+  let deviation = 0;
+  poly.pieces.forEach((p, k) => {
+    const end = k + 1 < poly.pieces.length ? poly.pieces[k + 1]!.first : n;
+    const [ax, ay] = pts[p.first]!, [bx, by] = pts[end % n]!;
+    const c = p.circle;
+    if (c) {
+      deviation = Math.max(deviation, c.deviationMm);
+      const ccw = (ax - c.cx) * (by - c.cy) - (ay - c.cy) * (bx - c.cx) > 0;
+      pieces.push({ ax, ay, bx, by, circle: { cx: c.cx, cy: c.cy, r: c.r, ccw } });
+      return;
+    }
+    deviation = Math.max(deviation, p.deviationMm);
+    for (let i = p.first; i < end; i++) {
+      const [x0, y0] = pts[i]!, [x1, y1] = pts[(i + 1) % n]!;
+      pieces.push({ ax: x0, ay: y0, bx: x1, by: y1, circle: null });
+    }
+  });
+  return { pieces, deviationMm: deviation };
+}
+
+/** Whether the direction (dx, dy) from a circle piece's centre lies in its sector. */
+function inSector(p: SearchPiece, dx: number, dy: number): boolean {
+  const c = p.circle!;
+  const [sx, sy, ex, ey] = c.ccw ? [p.ax - c.cx, p.ay - c.cy, p.bx - c.cx, p.by - c.cy] : [p.bx - c.cx, p.by - c.cy, p.ax - c.cx, p.ay - c.cy];
+  return sx * dy - sy * dx >= 0 && dx * ey - dy * ex >= 0;
+}
+
+function pieceBox(p: SearchPiece): [number, number, number, number] {
+  let minX = Math.min(p.ax, p.bx), minY = Math.min(p.ay, p.by), maxX = Math.max(p.ax, p.bx), maxY = Math.max(p.ay, p.by);
+  const c = p.circle;
+  if (c) {
+    // The arc's own ends and any axis-extreme point of the circle inside the sector.
+    const ends: [number, number][] = [];
+    for (const [dx, dy] of [[p.ax - c.cx, p.ay - c.cy], [p.bx - c.cx, p.by - c.cy]] as const) {
+      const l = Math.hypot(dx, dy);
+      if (l > 0) ends.push([c.cx + (c.r * dx) / l, c.cy + (c.r * dy) / l]);
+    }
+    for (const [dx, dy] of [[1, 0], [0, 1], [-1, 0], [0, -1]] as const) if (inSector(p, dx, dy)) ends.push([c.cx + c.r * dx, c.cy + c.r * dy]);
+    for (const [x, y] of ends) { minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y); }
+  }
+  return [minX, minY, maxX, maxY];
+}
+
+function distToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
+  const dx = bx - ax, dy = by - ay;
+  const l2 = dx * dx + dy * dy;
+  let t = l2 === 0 ? 0 : ((x - ax) * dx + (y - ay) * dy) / l2;
+  t = t < 0 ? 0 : t > 1 ? 1 : t;
+  return Math.hypot(x - ax - t * dx, y - ay - t * dy);
+}
+
+function distToPiece(p: SearchPiece, x: number, y: number): number {
+  const c = p.circle;
+  if (!c) return distToSegment(x, y, p.ax, p.ay, p.bx, p.by);
+  const dx = x - c.cx, dy = y - c.cy;
+  const ends = Math.min(Math.hypot(x - p.ax, y - p.ay), Math.hypot(x - p.bx, y - p.by));
+  return (dx !== 0 || dy !== 0) && inSector(p, dx, dy) ? Math.min(ends, Math.abs(Math.hypot(dx, dy) - c.r)) : ends;
+}
+
+function farthestOnPiece(p: SearchPiece, x: number, y: number): number {
+  const ends = Math.max(Math.hypot(x - p.ax, y - p.ay), Math.hypot(x - p.bx, y - p.by));
+  const c = p.circle;
+  if (!c) return ends;
+  const dx = c.cx - x, dy = c.cy - y;
+  if (dx === 0 && dy === 0) return Math.max(ends, c.r);
+  return inSector(p, dx, dy) ? Math.max(ends, Math.hypot(dx, dy) + c.r) : ends;
+}
+
+/** x where the piece crosses the height y, when it does (half-open in y, so shared ends count once). */
+function crossingX(p: SearchPiece, y: number): number | null {
+  if ((p.ay > y) === (p.by > y)) return null;
+  const c = p.circle;
+  if (!c) return p.ax + ((y - p.ay) * (p.bx - p.ax)) / (p.by - p.ay);
+  // A circle piece is monotone, so it lies on one side of its centre's vertical.
+  const side = Math.sign(p.ax + p.bx - 2 * c.cx);
+  const x = c.cx + side * Math.sqrt(Math.max(0, c.r * c.r - (y - c.cy) ** 2));
+  return Math.min(Math.max(x, Math.min(p.ax, p.bx)), Math.max(p.ax, p.bx));
+}
+
+/**
+ * A linear function g ≥ the distance to the piece over the square cell (centre x, y, half-side h),
+ * when one exists: for a segment, if the whole cell projects inside it on one side, the distance is
+ * linear there; for a circle piece, if the whole cell is inside the circle and in the sector, the
+ * distance is r − |p − C| there, below its tangent plane at the cell's centre (Cauchy–Schwarz).
+ * Corners suffice: the strip, half-plane, disc and sector (≤ a quarter turn) are convex.
+ */
+function linearUpperBound(p: SearchPiece, x: number, y: number, h: number): [number, number, number] | null {
+  const corners = [x - h, y - h, x + h, y - h, x - h, y + h, x + h, y + h];
+  const c = p.circle;
+  if (!c) {
+    const dx = p.bx - p.ax, dy = p.by - p.ay, l = Math.hypot(dx, dy);
+    if (l === 0) return null;
+    let sign = 0;
+    for (let k = 0; k < 8; k += 2) {
+      const qx = corners[k]! - p.ax, qy = corners[k + 1]! - p.ay;
+      const t = (qx * dx + qy * dy) / (l * l);
+      if (t < 0 || t > 1) return null;
+      const s = Math.sign(dx * qy - dy * qx);
+      if (s !== 0) { if (sign !== 0 && s !== sign) return null; sign = s; }
+    }
+    const a = ((sign || 1) * -dy) / l, b = ((sign || 1) * dx) / l;
+    return [a, b, -(a * p.ax + b * p.ay)];
+  }
+  for (let k = 0; k < 8; k += 2) {
+    const dx = corners[k]! - c.cx, dy = corners[k + 1]! - c.cy;
+    if (Math.hypot(dx, dy) > c.r || !inSector(p, dx, dy)) return null;
+  }
+  const l = Math.hypot(x - c.cx, y - c.cy);
+  if (l === 0) return null;
+  const ux = (x - c.cx) / l, uy = (y - c.cy) / l;
+  return [-ux, -uy, c.r + ux * c.cx + uy * c.cy];
+}
+
+/**
+ * max over the square (centre x0, y0, half-side h) of min_k g_k, exact: the maximum of this 2D
+ * linear programme lies at a vertex, where two of {box sides, g_i = g_j} or three g are tight, and
+ * every such point is tried (points just outside the box only raise the answer, which stays an
+ * upper bound).
+ */
+function maxOfMinLinear(gs: readonly (readonly [number, number, number])[], x0: number, y0: number, h: number): number {
+  // Coordinates relative to the cell's centre: g(x0 + u, y0 + v) = a u + b v + (a x0 + b y0 + c).
+  const rel = gs.map(([a, b, c]) => [a, b, a * x0 + b * y0 + c] as const);
+  const lo = -h * (1 + 1e-9), hi = h * (1 + 1e-9);
+  let best = -Infinity;
+  const tryAt = (u: number, v: number) => {
+    if (!(u >= lo && u <= hi && v >= lo && v <= hi)) return;
+    let m = Infinity;
+    for (const [a, b, c] of rel) m = Math.min(m, a * u + b * v + c);
+    best = Math.max(best, m);
+  };
+  tryAt(-h, -h); tryAt(h, -h); tryAt(-h, h); tryAt(h, h);
+  for (let i = 0; i < rel.length; i++) {
+    for (let j = i + 1; j < rel.length; j++) {
+      const da = rel[i]![0] - rel[j]![0], db = rel[i]![1] - rel[j]![1], dc = rel[i]![2] - rel[j]![2];
+      for (const u of [-h, h]) if (db !== 0) tryAt(u, -(da * u + dc) / db);
+      for (const v of [-h, h]) if (da !== 0) tryAt(-(db * v + dc) / da, v);
+      for (let k = j + 1; k < rel.length; k++) {
+        const ea = rel[i]![0] - rel[k]![0], eb = rel[i]![1] - rel[k]![1], ec = rel[i]![2] - rel[k]![2];
+        const det = da * eb - db * ea;
+        if (det !== 0) tryAt((-dc * eb + db * ec) / det, (-da * ec + dc * ea) / det);
+      }
+    }
+  }
+  return best;
+}
+
+/** How many of the nearest pieces feed the linear-programme bound of a cell. */
+const BOUND_PIECES = 4;
+
+/**
+ * Distance queries on an outline from a flatbush index of its pieces, with the same results as
+ * scanning every piece:
+ * - nearest: the piece nearest by box gives an upper bound d0 on the distance; every piece at
+ *   distance ≤ d0 has its box within the square of half-side d0, so the minimum over those is exact;
+ * - inside (even-odd): a piece crossing the ray to the right of the point has a box meeting that ray;
+ * - `upper(x, y, h)`: an upper bound on the distance over the cell, the smaller of the Lipschitz bound
+ *   d + h√2 and the linear programme over the linear bounds of the BOUND_PIECES nearest pieces.
+ */
+function createOutlineDistance(outline: SearchOutline) {
+  const pieces = outline.pieces, n = pieces.length;
+  const index = new Flatbush(Math.max(1, n));
+  for (const p of pieces) index.add(...pieceBox(p));
+  if (n === 0) index.add(0, 0, 0, 0);
+  index.finish();
+  const near: number[] = [], nearD: number[] = [];
+  const nearest = (x: number, y: number, keep: number) => {
+    near.length = 0; nearD.length = 0;
+    if (n === 0) return Infinity;
+    const d0 = distToPiece(pieces[index.neighbors(x, y, 1)[0]!]!, x, y);
+    for (const i of index.search(x - d0, y - d0, x + d0, y + d0)) {
+      const d = distToPiece(pieces[i]!, x, y);
+      if (near.length === keep && d >= nearD[keep - 1]!) continue;
+      let k = Math.min(near.length, keep - 1);
+      near[k] = i; nearD[k] = d;
+      while (k > 0 && nearD[k - 1]! > d) { near[k] = near[k - 1]!; nearD[k] = nearD[k - 1]!; near[k - 1] = i; nearD[k - 1] = d; k--; }
+    }
+    return nearD[0] ?? d0;
+  };
+  const inside = (x: number, y: number) => {
+    let odd = false;
+    for (const i of index.search(x, y, index.maxX, y)) {
+      const cx = crossingX(pieces[i]!, y);
+      if (cx !== null && x < cx) odd = !odd;
+    }
+    return odd;
+  };
+  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
+  return {
+    distance: (x: number, y: number) => nearest(x, y, 1),
+    /** Signed distance (positive inside) at the cell's centre and an upper bound over the cell. */
+    signedWithBound: (x: number, y: number, h: number) => {
+      const d = nearest(x, y, BOUND_PIECES);
+      const f = inside(x, y) ? d : -d;
+      let upper = f + h * Math.SQRT2;
+      const gs: [number, number, number][] = [];
+      for (const i of near) { const g = linearUpperBound(pieces[i]!, x, y, h); if (g) gs.push(g); }
+      if (gs.length > 0) upper = Math.min(upper, maxOfMinLinear(gs, x, y, h) + slack);
+      return { f, upper };
+    },
+  };
+}
+
+/**
+ * Largest distance from a point to the outline, exact: the pieces are grouped in runs of
  * FARTHEST_RUN with their boxes; runs are scanned in order of the farthest corner of their box
  * (an upper bound) until that bound falls below the best distance found.
  */
 const FARTHEST_RUN = 32;
-function createFarthestDistance(pts: readonly Pt[]): (x: number, y: number) => number {
+function createFarthestDistance(outline: SearchOutline): (x: number, y: number) => number {
+  const pieces = outline.pieces;
   const runs: [number, number, number, number, number][] = [];
-  for (let s = 0; s < pts.length; s += FARTHEST_RUN) {
+  for (let s = 0; s < pieces.length; s += FARTHEST_RUN) {
     let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (let k = s; k < Math.min(pts.length, s + FARTHEST_RUN); k++) {
-      const [px, py] = pts[k]!;
-      minX = Math.min(minX, px); minY = Math.min(minY, py); maxX = Math.max(maxX, px); maxY = Math.max(maxY, py);
+    for (let k = s; k < Math.min(pieces.length, s + FARTHEST_RUN); k++) {
+      const [x0, y0, x1, y1] = pieceBox(pieces[k]!);
+      minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
     }
     runs.push([s, minX, minY, maxX, maxY]);
   }
@@ -158,7 +355,7 @@ function createFarthestDistance(pts: readonly Pt[]): (x: number, y: number) => n
     for (const k of order) {
       if (bounds[k]! <= best) break;
       const s = runs[k]![0];
-      for (let i = s; i < Math.min(pts.length, s + FARTHEST_RUN); i++) best = Math.max(best, Math.hypot(pts[i]![0] - x, pts[i]![1] - y));
+      for (let i = s; i < Math.min(pieces.length, s + FARTHEST_RUN); i++) best = Math.max(best, farthestOnPiece(pieces[i]!, x, y));
     }
     return best;
   };
@@ -169,17 +366,20 @@ function createFarthestDistance(pts: readonly Pt[]): (x: number, y: number) => n
 interface Cell { x: number; y: number; h: number; f: number; bound: number }
 
 /**
- * Best-first branch and bound maximising f over square cells (f L-Lipschitz). Returns the best
- * point, its value and the largest upper bound left when stopping (≤ best + tol unless capped).
+ * Best-first branch and bound maximising f over square cells; `evaluate` gives f at a cell's centre
+ * and an upper bound of f over the cell. Returns the best point, its value and the largest upper
+ * bound left when stopping (≤ best + tol unless capped).
  */
-function maximise(f: (x: number, y: number) => number, lipschitz: number, box: readonly [number, number, number, number], tol: number, accept: (x: number, y: number, h: number) => boolean) {
+function maximise(evaluate: (x: number, y: number, h: number) => { f: number; upper: number }, box: readonly [number, number, number, number], tol: number, accept: (x: number, y: number, h: number) => boolean) {
   const [minX, minY, maxX, maxY] = box;
   const size = Math.max(maxX - minX, maxY - minY) || 1;
   const heap: Cell[] = [];
+  let best = { x: (minX + maxX) / 2, y: (minY + maxY) / 2, f: -Infinity };
   const push = (x: number, y: number, h: number) => {
     if (!accept(x, y, h)) return;
-    const v = f(x, y);
-    const cell = { x, y, h, f: v, bound: v + lipschitz * h * Math.SQRT2 };
+    const { f, upper } = evaluate(x, y, h);
+    if (f > best.f) best = { x, y, f };
+    const cell = { x, y, h, f, bound: upper };
     heap.push(cell);
     let i = heap.length - 1;
     while (i > 0) {
@@ -209,12 +409,10 @@ function maximise(f: (x: number, y: number) => number, lipschitz: number, box: r
   };
   const h0 = size / 2;
   push((minX + maxX) / 2, (minY + maxY) / 2, h0);
-  let best = { x: (minX + maxX) / 2, y: (minY + maxY) / 2, f: heap[0]?.f ?? -Infinity };
   let cells = 0;
   let capped = false;
   while (heap.length > 0) {
     const c = pop();
-    if (c.f > best.f) best = { x: c.x, y: c.y, f: c.f };
     if (c.bound - best.f <= tol) {
       heap.length = 0;
       return { ...best, upper: Math.max(best.f, c.bound), capped };
@@ -230,22 +428,17 @@ function maximise(f: (x: number, y: number) => number, lipschitz: number, box: r
 }
 
 /**
- * Minimum-zone roundness of a closed polyline (inner distances to its edges) or of a point set
- * (`asPoints`: inner distances to the points, as for measured profiles), searched inside the
- * smallest enclosing disc. Exact up to `errorBound` (the branch-and-bound gap).
+ * Minimum-zone roundness of an outline, searched inside the smallest enclosing disc of its hull
+ * points. F(c) = farthest − nearest is 2-Lipschitz, so the branch and bound is exact up to
+ * `errorBound` (its gap); the outline's own deviation δ is the caller's to add.
  */
-export function getMinimumZone(points: readonly Pt[], options: { asPoints?: boolean; tolerance?: number } = {}) {
-  const mec = getSmallestEnclosingCircle(points);
-  // The farthest point of the outline from any centre is a vertex: the farthest vertex is exact.
-  const farthest = createFarthestDistance(points);
-  const tol = options.tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * 2 * mec.r;
-  const polyline = options.asPoints ? null : createPolylineDistance(points);
-  const inner = polyline
-    ? (x: number, y: number) => polyline(x, y).d
-    : (x: number, y: number) => Math.min(...points.map((p) => Math.hypot(p[0] - x, p[1] - y)));
-  const width = (x: number, y: number) => farthest(x, y) - inner(x, y);
+function minimumZoneOf(outline: SearchOutline, mec: Circle, tolerance?: number) {
+  const farthest = createFarthestDistance(outline);
+  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * 2 * mec.r;
+  const { distance } = createOutlineDistance(outline);
+  const width = (x: number, y: number) => farthest(x, y) - distance(x, y);
   const r = maximise(
-    (x, y) => -width(x, y), 2,
+    (x, y, h) => { const f = -width(x, y); return { f, upper: f + 2 * h * Math.SQRT2 }; },
     [mec.x - mec.r, mec.y - mec.r, mec.x + mec.r, mec.y + mec.r], tol,
     (x, y, h) => Math.hypot(x - mec.x, y - mec.y) <= mec.r + h * Math.SQRT2,
   );
@@ -262,17 +455,35 @@ export function getMinimumZone(points: readonly Pt[], options: { asPoints?: bool
   };
 }
 
+/**
+ * Minimum-zone roundness of a closed polyline (inner distances to its edges) or of a point set
+ * (`asPoints`: inner distances to the points, as for measured profiles), searched inside the
+ * smallest enclosing disc. Exact up to `errorBound` (the branch-and-bound gap).
+ */
+export function getMinimumZone(points: readonly Pt[], options: { asPoints?: boolean; tolerance?: number } = {}) {
+  return minimumZoneOf(outlineFromPoints(points, options.asPoints), getSmallestEnclosingCircle(points), options.tolerance);
+}
+
+/**
+ * Largest inscribed circle of an outline (even-odd inside), to `tolerance`: branch and bound on the
+ * signed distance with the linear-programme cell bound, which is exact on plateaus (a rectangle's
+ * inradius is reached along a segment) where the Lipschitz bound alone never closes the gap.
+ */
+function inscribedCircleOf(outline: SearchOutline, tolerance?: number) {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const p of outline.pieces) {
+    const [x0, y0, x1, y1] = pieceBox(p);
+    minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
+  }
+  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * Math.hypot(maxX - minX, maxY - minY);
+  const { signedWithBound } = createOutlineDistance(outline);
+  const r = maximise(signedWithBound, [minX, minY, maxX, maxY], tol, () => true);
+  return { radiusMm: r.f, centreX: r.x, centreY: r.y, errorBoundMm: Math.max(0, r.upper - r.f), capped: r.capped };
+}
+
 /** Largest inscribed circle of a closed polyline (even-odd inside), to `tolerance`. */
 export function getLargestInscribedCircle(points: readonly Pt[], tolerance?: number) {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const [x, y] of points) { minX = Math.min(minX, x); minY = Math.min(minY, y); maxX = Math.max(maxX, x); maxY = Math.max(maxY, y); }
-  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * Math.hypot(maxX - minX, maxY - minY);
-  const distance = createPolylineDistance(points);
-  const r = maximise((x, y) => {
-    const { d, inside } = distance(x, y);
-    return inside ? d : -d;
-  }, 1, [minX, minY, maxX, maxY], tol, () => true);
-  return { radiusMm: r.f, centreX: r.x, centreY: r.y, errorBoundMm: Math.max(0, r.upper - r.f), capped: r.capped };
+  return inscribedCircleOf(outlineFromPoints(points), tolerance);
 }
 
 /** ∬ w(p)² dA of a closed polyline, exact by horizontal slabs (see the module comment). */
@@ -347,18 +558,20 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
       ? undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`)
       : { value: getWindingSquaredArea(poly.points, findSelfIntersections(polylineContour(contour, poly.points)).intersections.map((x) => x.y)) };
   }
-  if (poly.points.length > MAX_ROUNDNESS_VERTICES) {
-    const why = undef(`the flattened contour has ${poly.points.length} vertices, more than the ${MAX_ROUNDNESS_VERTICES} searched`);
+  const outline = outlineFromPolyline(poly);
+  if (outline.pieces.length > MAX_ROUNDNESS_PIECES) {
+    const why = undef(`the flattened contour has ${outline.pieces.length} pieces, more than the ${MAX_ROUNDNESS_PIECES} searched`);
     return { hull, roundness: { inradius: why, circumradius, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: windingSquared } };
   }
-  const lic = getLargestInscribedCircle(poly.points);
-  const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + delta);
+  const searchDelta = outline.deviationMm;
+  const lic = inscribedCircleOf(outline);
+  const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + searchDelta);
   let minZone: MeasuredCircle = undef('the contour crosses itself, so it has no inside to zone');
   if (!selfCrossing) {
-    const mz = getMinimumZone(poly.points);
+    const mz = minimumZoneOf(outline, mec);
     minZone = mz.onSearchRim
       ? undef('not round: the shape is elongated, so the best centre lies on the rim of its enclosing circle and no finite minimum zone exists')
-      : toCircle(mz.widthMm, mz.centreX, mz.centreY, mz.errorBoundMm + 2 * delta);
+      : toCircle(mz.widthMm, mz.centreX, mz.centreY, mz.errorBoundMm + 2 * searchDelta);
   }
   return {
     hull,

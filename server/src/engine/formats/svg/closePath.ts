@@ -51,17 +51,17 @@ const TITLE_MOVE_AND_Z = 'Close the contour (move the end onto the start and add
 /**
  * Edits (file offsets; `base` is the file offset of `d[0]`) that close an open subpath with no
  * sliver: insert Z when its end already is its start, otherwise move the end onto the start first.
+ * (sx, sy) is the subpath's start and `last` its last segment, both in user units as read.
  */
 export function getCloseFix(
   d: string,
   base: number,
-  subpath: { readonly startX: number; readonly startY: number; readonly segments: readonly Segment[] },
+  sx: number,
+  sy: number,
+  last: Segment,
   group: ArgumentGroup,
   next: FollowingMoveto | null,
 ): Fix {
-  const sx = subpath.startX;
-  const sy = subpath.startY;
-  const last = subpath.segments[subpath.segments.length - 1]!;
   const [ex, ey] = getSegmentEnd(last);
   const at = (start: number, end: number): SourceSpan => ({ start: base + start, end: base + end });
   if (ex === sx && ey === sy) {

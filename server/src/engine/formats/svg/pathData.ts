@@ -1,5 +1,6 @@
 import type { Fix, Segment, SourceSpan } from '../../types';
 import { arcFromSvgEndpoints } from '../../geometry/arc';
+import { isIdentityMatrix, transformSegment, type Matrix } from '../../geometry/transform';
 import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
 
 /**
@@ -17,13 +18,16 @@ import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto
  * exact fast path below cannot convert.
  */
 
-/** One subpath of a `d` attribute, in user units (no transform); spans are file offsets. */
+/** One subpath of a `d` attribute; spans are file offsets. */
 export interface PathSubpath {
-  /** Drawn segments; H/V and zero-radius arcs are lines, arcs with coinciding ends zero-length lines. */
+  /**
+   * Drawn segments, mapped by the matrix given to `parsePathData` (built once, in final
+   * coordinates); H/V and zero-radius arcs are lines, arcs with coinciding ends zero-length lines.
+   */
   segments: Segment[];
   /** Ended by Z/z. */
   closed: boolean;
-  /** Start point (the moveto, or after a Z the previous subpath's start), user units. */
+  /** Start point (the moveto, or after a Z the previous subpath's start), user units (not mapped). */
   startX: number;
   startY: number;
   /** From the moveto letter (or the first drawing command after a Z) to the end of the last command, Z included. */
@@ -49,10 +53,12 @@ export interface ParsedPathData {
 
 /**
  * Reads path data. `baseOffset` is the file offset of `d[0]`; every span returned is a file offset.
- * Never throws: the first error ends reading and is returned with what was read before it.
+ * Segments are mapped by `matrix` as they are built (`transformSegment`), so a huge path is not
+ * copied a second time. Never throws: the first error ends reading and is returned with what was
+ * read before it.
  */
-export function parsePathData(d: string, baseOffset: number): ParsedPathData {
-  const parser = new PathDataParser(d, baseOffset);
+export function parsePathData(d: string, baseOffset: number, matrix: Matrix | null = null): ParsedPathData {
+  const parser = new PathDataParser(d, baseOffset, matrix !== null && !isIdentityMatrix(matrix) ? matrix : null);
   parser.run();
   return parser.error ? { subpaths: parser.subpaths, error: parser.error } : { subpaths: parser.subpaths };
 }
@@ -129,8 +135,10 @@ class PathDataParser {
   private lastEnd = 0;
   private lastX0 = 0;
   private lastY0 = 0;
+  /** The last segment in user units (the close fix edits the text, so it works before the matrix). */
+  private lastSegment: Segment | null = null;
 
-  constructor(private readonly d: string, private readonly base: number) {
+  constructor(private readonly d: string, private readonly base: number, private readonly matrix: Matrix | null) {
     this.n = d.length;
   }
 
@@ -445,7 +453,8 @@ class PathDataParser {
         spanStart: start, spanEnd: end, startSpan: span, endSpan: span,
       };
     }
-    sub.segments.push(seg);
+    sub.segments.push(this.matrix === null ? seg : transformSegment(seg, this.matrix));
+    this.lastSegment = seg;
     sub.spanEnd = end;
     sub.endSpan = span;
     this.cx = x;
@@ -489,7 +498,7 @@ class PathDataParser {
         x0: this.lastX0,
         y0: this.lastY0,
       };
-      result.closeFix = getCloseFix(this.d, this.base, result, group, next);
+      result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, this.lastSegment!, group, next);
     }
     this.subpaths.push(result);
   }

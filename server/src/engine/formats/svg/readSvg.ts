@@ -121,19 +121,20 @@ class SvgReader {
   // ── viewports and transforms ────────────────────────────────────────────────────────────────
 
   /** The element's `transform` attribute; invalid lists are reported and ignored (as browsers do). */
-  private getTransform(el: SvgElement): Matrix | null {
+  private getTransform(el: SvgElement, report = true): Matrix | null {
     const attr = el.attributes.get('transform');
     if (!attr) return null;
     const result = parseTransformList(attr.value);
     if ('error' in result) {
-      this.report('value', attr.span, { attribute: 'transform', detail: result.error });
+      if (report) this.report('value', attr.span, { attribute: 'transform', detail: result.error });
       return null;
     }
     return result.matrix;
   }
 
-  private withTransform(el: SvgElement, matrix: Matrix): Matrix {
-    const t = this.getTransform(el);
+  /** The element's CTM; `report: false` leaves an invalid `transform` unreported (the caller reports it later or not at all). */
+  private withTransform(el: SvgElement, matrix: Matrix, report = true): Matrix {
+    const t = this.getTransform(el, report);
     return t ? multiplyMatrices(matrix, t) : matrix;
   }
 
@@ -352,6 +353,7 @@ class SvgReader {
 
   // ── contours ────────────────────────────────────────────────────────────────────────────────
 
+  /** `segments` are already mapped by `matrix`; the start point is mapped here. */
   private addContour(el: SvgElement, state: WalkState, matrix: Matrix, c: {
     segments: readonly Segment[]; closed: boolean; startX: number; startY: number;
     span: SourceSpan; startSpan: SourceSpan; endSpan: SourceSpan; closeFix?: Fix | undefined;
@@ -360,7 +362,7 @@ class SvgReader {
     const id = el.attributes.get('id')?.value;
     const contour: Contour = {
       index: this.contours.length,
-      segments: transformSegments(c.segments, matrix),
+      segments: c.segments,
       closed: c.closed,
       startX,
       startY,
@@ -379,7 +381,7 @@ class SvgReader {
     const outline = getShapeOutline(el, this.lengthContext(state));
     if (!outline) return;
     const matrix = this.withTransform(el, state.matrix);
-    this.addContour(el, state, matrix, { ...outline, span: el.tagSpan });
+    this.addContour(el, state, matrix, { ...outline, segments: transformSegments(outline.segments, matrix), span: el.tagSpan });
   }
 
   /**
@@ -393,7 +395,10 @@ class SvgReader {
     if (!attr) return;
     const { value, offsets } = getPositionedValue(this.text, attr, this.doc.entities);
     const base = attr.span.start;
-    const parsed = parsePathData(value, base);
+    // Segments are built in final coordinates; an invalid transform is reported below, only for a
+    // path that draws something.
+    const matrix = this.withTransform(el, state.matrix, false);
+    const parsed = parsePathData(value, base, matrix);
     const last = value.length;
     const mapOffset = (o: number) => offsets![Math.min(Math.max(o - base, 0), last)]!;
     const mapSpan = offsets
@@ -401,7 +406,7 @@ class SvgReader {
       : (s: SourceSpan): SourceSpan => s;
     if (parsed.error) this.report('pathData', mapSpan(parsed.error.span), { detail: parsed.error.detail });
     if (parsed.subpaths.length === 0) return;
-    const matrix = this.withTransform(el, state.matrix);
+    this.getTransform(el);
     for (const sub of parsed.subpaths) {
       const segments = offsets ? sub.segments.map((s) => ({ ...s, span: mapSpan(s.span) })) : sub.segments;
       const closeFix = sub.closeFix && offsets

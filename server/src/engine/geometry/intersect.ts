@@ -655,6 +655,17 @@ function mergeOverlaps(P: Pieces, contours: readonly Contour[], raw: RawOverlap[
   return out;
 }
 
+/**
+ * Line piece `a` ends exactly where line piece `b` starts and b's end is off a's line: two lines
+ * through their common joint meet nowhere else, and the joint itself is no intersection, so the
+ * narrow phase would find only that point and drop it (exact: orient2d).
+ */
+function linesMeetOnlyAtJoint(buf: Float64Array, a: number, b: number): boolean {
+  const o = a * STRIDE, q = b * STRIDE;
+  return buf[o + 6] === buf[q + 4] && buf[o + 7] === buf[q + 5]
+    && ccw(buf[o + 4]!, buf[o + 5]!, buf[o + 6]!, buf[o + 7]!, buf[q + 6]!, buf[q + 7]!) !== 0;
+}
+
 /** Bounding-box diagonal of all contours' pieces, the size that `eps` is relative to. */
 function getSize(P: Pieces): number {
   const [a, b, c, d] = P.bbox;
@@ -702,10 +713,14 @@ export function findIntersections(contours: readonly Contour[], options: Interse
       const ch = P.chains[ci]!;
       const adjacent = j === i + 1 || (ch.cyclic && i === ch.first && j === ch.first + ch.count - 1 && ch.count > 2);
       if (adjacent) {
-        // Monotone neighbours whose boxes meet in a zero-area region can share only their common end.
-        const w = Math.min(boxes[4 * i + 2]!, boxes[4 * j + 2]!) - Math.max(boxes[4 * i]!, boxes[4 * j]!);
-        const h = Math.min(boxes[4 * i + 3]!, boxes[4 * j + 3]!) - Math.max(boxes[4 * i + 1]!, boxes[4 * j + 1]!);
-        if (!(w > 0 && h > 0) && (buf[i * STRIDE] !== KIND_LINE || buf[j * STRIDE] !== KIND_LINE)) return false;
+        if (buf[i * STRIDE] === KIND_LINE && buf[j * STRIDE] === KIND_LINE) {
+          if (j === i + 1 ? linesMeetOnlyAtJoint(buf, i, j) : linesMeetOnlyAtJoint(buf, j, i)) return false;
+        } else {
+          // Monotone neighbours whose boxes meet in a zero-area region can share only their common end.
+          const w = Math.min(boxes[4 * i + 2]!, boxes[4 * j + 2]!) - Math.max(boxes[4 * i]!, boxes[4 * j]!);
+          const h = Math.min(boxes[4 * i + 3]!, boxes[4 * j + 3]!) - Math.max(boxes[4 * i + 1]!, boxes[4 * j + 1]!);
+          if (!(w > 0 && h > 0)) return false;
+        }
       }
     }
     narrow(col, i, j);

@@ -15,7 +15,7 @@
  *   arc: o+8 cx, o+9 cy, o+10 ux, o+11 uy, o+12 vx, o+13 vy, o+14 θ at start, o+15 θ at end.
  */
 import type { Contour, Segment } from '../types';
-import { getPolynomialRoots } from './intersectRoots';
+import { addQuadraticRootsInUnitInterval } from './intersectRoots';
 
 export const STRIDE = 16;
 export const KIND_LINE = 0;
@@ -45,16 +45,24 @@ export interface Pieces {
 }
 
 class PieceWriter {
-  buf = new Float64Array(STRIDE * 64);
-  contourOf = new Int32Array(64);
+  buf: Float64Array;
+  contourOf: Int32Array;
   count = 0;
+
+  /** `capacity`: expected piece count (one per segment is exact for lines and arcs' common case). */
+  constructor(capacity: number) {
+    const n = Math.max(64, capacity);
+    this.buf = new Float64Array(STRIDE * n);
+    this.contourOf = new Int32Array(n);
+  }
 
   next(contour: number): number {
     if ((this.count + 1) * STRIDE > this.buf.length) {
-      const b = new Float64Array(this.buf.length * 2);
+      const n = Math.ceil(this.contourOf.length * 1.5);
+      const b = new Float64Array(STRIDE * n);
       b.set(this.buf);
       this.buf = b;
-      const c = new Int32Array(this.contourOf.length * 2);
+      const c = new Int32Array(n);
       c.set(this.contourOf);
       this.contourOf = c;
     }
@@ -63,46 +71,54 @@ class PieceWriter {
   }
 }
 
-/** Parameters in (0, 1) where a·t² + b·t + c = 0 (the derivative of one Bézier coordinate). */
+/** Parameters in (0, 1) where c0 + c1·t + c2·t² = 0 (the derivative of one Bézier coordinate). */
 function addDerivativeRoots(ts: number[], c0: number, c1: number, c2: number): void {
-  for (const t of getPolynomialRoots([c0, c1, c2], 0, 1, 0)) if (t > 0 && t < 1) ts.push(t);
+  const from = ts.length;
+  addQuadraticRootsInUnitInterval(ts, c0, c1, c2);
+  let n = from;
+  for (let k = from; k < ts.length; k++) if (ts[k]! > 0 && ts[k]! < 1) ts[n++] = ts[k]!;
+  ts.length = n;
 }
 
+/** Sorts the split parameters and drops those within 1e-12 of the one before (in place). */
 function splitPoints(ts: number[]): number[] {
+  if (ts.length < 2) return ts;
   ts.sort((a, b) => a - b);
-  const out: number[] = [];
-  for (const t of ts) if (out.length === 0 || t - out[out.length - 1]! > 1e-12) out.push(t);
-  return out;
+  let n = 1;
+  for (let k = 1; k < ts.length; k++) if (ts[k]! - ts[n - 1]! > 1e-12) ts[n++] = ts[k]!;
+  ts.length = n;
+  return ts;
 }
 
 /** Splits a cubic (8 numbers) at t into two; returns [left, right]. de Casteljau. */
 export function splitCubic(p: ArrayLike<number>, t: number): [number[], number[]] {
-  const [x0, y0, x1, y1, x2, y2, x3, y3] = p as unknown as number[];
-  const ax = x0! + (x1! - x0!) * t, ay = y0! + (y1! - y0!) * t;
-  const bx = x1! + (x2! - x1!) * t, by = y1! + (y2! - y1!) * t;
-  const cx = x2! + (x3! - x2!) * t, cy = y2! + (y3! - y2!) * t;
+  const x0 = p[0]!, y0 = p[1]!, x1 = p[2]!, y1 = p[3]!, x2 = p[4]!, y2 = p[5]!, x3 = p[6]!, y3 = p[7]!;
+  const ax = x0 + (x1 - x0) * t, ay = y0 + (y1 - y0) * t;
+  const bx = x1 + (x2 - x1) * t, by = y1 + (y2 - y1) * t;
+  const cx = x2 + (x3 - x2) * t, cy = y2 + (y3 - y2) * t;
   const dx = ax + (bx - ax) * t, dy = ay + (by - ay) * t;
   const ex = bx + (cx - bx) * t, ey = by + (cy - by) * t;
   const fx = dx + (ex - dx) * t, fy = dy + (ey - dy) * t;
   return [
-    [x0!, y0!, ax, ay, dx, dy, fx, fy],
-    [fx, fy, ex, ey, cx, cy, x3!, y3!],
+    [x0, y0, ax, ay, dx, dy, fx, fy],
+    [fx, fy, ex, ey, cx, cy, x3, y3],
   ];
 }
 
 /** Splits a quadratic (6 numbers) at t. */
 export function splitQuad(p: ArrayLike<number>, t: number): [number[], number[]] {
-  const [x0, y0, x1, y1, x2, y2] = p as unknown as number[];
-  const ax = x0! + (x1! - x0!) * t, ay = y0! + (y1! - y0!) * t;
-  const bx = x1! + (x2! - x1!) * t, by = y1! + (y2! - y1!) * t;
+  const x0 = p[0]!, y0 = p[1]!, x1 = p[2]!, y1 = p[3]!, x2 = p[4]!, y2 = p[5]!;
+  const ax = x0 + (x1 - x0) * t, ay = y0 + (y1 - y0) * t;
+  const bx = x1 + (x2 - x1) * t, by = y1 + (y2 - y1) * t;
   const cx = ax + (bx - ax) * t, cy = ay + (by - ay) * t;
   return [
-    [x0!, y0!, ax, ay, cx, cy],
-    [cx, cy, bx, by, x2!, y2!],
+    [x0, y0, ax, ay, cx, cy],
+    [cx, cy, bx, by, x2, y2],
   ];
 }
 
-function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, pts: number[], t0: number, t1: number): void {
+/** Writes a piece from control points in `pts` (6 or 8 numbers). */
+function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, pts: ArrayLike<number>, t0: number, t1: number): void {
   const o = w.next(contour);
   const b = w.buf;
   b[o] = kind;
@@ -117,34 +133,39 @@ function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, 
   for (let k = 2; k < n - 2; k++) b[o + 6 + k] = pts[k]!;
 }
 
+/** Control points of the Bézier being cut (its remaining right part), reused across segments. */
+const CUBIC_REST = new Float64Array(8);
+const QUAD_REST = new Float64Array(6);
+/** Split parameters of the segment being cut, reused across segments. */
+const SPLITS: number[] = [];
+
 function addBezier(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'quad' | 'cubic' }): void {
   const cubic = s.kind === 'cubic';
-  const pts = cubic
-    ? [s.x0, s.y0, s.x1, s.y1, s.x2, s.y2, s.x3, s.y3]
-    : [s.x0, s.y0, s.x1, s.y1, s.x2, s.y2];
-  const ts: number[] = [];
-  for (let d = 0; d < 2; d++) {
-    if (cubic) {
-      const p0 = pts[d]!, p1 = pts[2 + d]!, p2 = pts[4 + d]!, p3 = pts[6 + d]!;
-      // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t:
-      const a = p1 - p0, b = p2 - p1, c = p3 - p2;
-      addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
-    } else {
-      const p0 = pts[d]!, p1 = pts[2 + d]!, p2 = pts[4 + d]!;
-      addDerivativeRoots(ts, p1 - p0, p0 - 2 * p1 + p2, 0);
-    }
+  const ts = SPLITS;
+  ts.length = 0;
+  if (cubic) {
+    // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t, per coordinate:
+    let a = s.x1 - s.x0, b = s.x2 - s.x1, c = s.x3 - s.x2;
+    addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
+    a = s.y1 - s.y0; b = s.y2 - s.y1; c = s.y3 - s.y2;
+    addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
+  } else {
+    addDerivativeRoots(ts, s.x1 - s.x0, s.x0 - 2 * s.x1 + s.x2, 0);
+    addDerivativeRoots(ts, s.y1 - s.y0, s.y0 - 2 * s.y1 + s.y2, 0);
   }
   const kind = cubic ? KIND_CUBIC : KIND_QUAD;
-  let rest = pts;
+  const r = cubic ? CUBIC_REST : QUAD_REST;
+  r[0] = s.x0; r[1] = s.y0; r[2] = s.x1; r[3] = s.y1; r[4] = s.x2; r[5] = s.y2;
+  if (s.kind === 'cubic') { r[6] = s.x3; r[7] = s.y3; }
   let t0 = 0;
   for (const t of splitPoints(ts)) {
     const local = (t - t0) / (1 - t0);
-    const [left, right] = cubic ? splitCubic(rest, local) : splitQuad(rest, local);
+    const [left, right] = cubic ? splitCubic(r, local) : splitQuad(r, local);
     pushBezier(w, contour, seg, kind, left, t0, t);
-    rest = right;
+    r.set(right);
     t0 = t;
   }
-  pushBezier(w, contour, seg, kind, rest, t0, 1);
+  pushBezier(w, contour, seg, kind, r, t0, 1);
 }
 
 function addArc(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'arc' }): void {
@@ -191,27 +212,24 @@ function addLine(w: PieceWriter, contour: number, seg: number, x0: number, y0: n
   b[o + 4] = x0; b[o + 5] = y0; b[o + 6] = x1; b[o + 7] = y1;
 }
 
-function segmentEnd(s: Segment): [number, number] {
-  switch (s.kind) {
-    case 'line': return [s.x1, s.y1];
-    case 'quad': return [s.x2, s.y2];
-    case 'cubic': return [s.x3, s.y3];
-    case 'arc': return [s.x1, s.y1];
-  }
-}
-
 /** Size of a segment's control polygon seen from its start: 0 means the segment is a single point. */
 function controlExtent(s: Segment): number {
-  if (s.kind === 'arc') {
-    const r = Math.max(Math.hypot(s.ux, s.uy), Math.hypot(s.vx, s.vy));
-    return Math.max(Math.abs(s.x1 - s.x0), Math.abs(s.y1 - s.y0), r * Math.abs(s.sweep));
+  const x0 = s.x0, y0 = s.y0;
+  switch (s.kind) {
+    case 'arc': {
+      const r = Math.max(Math.hypot(s.ux, s.uy), Math.hypot(s.vx, s.vy));
+      return Math.max(Math.abs(s.x1 - x0), Math.abs(s.y1 - y0), r * Math.abs(s.sweep));
+    }
+    case 'line':
+      return Math.max(0, Math.abs(s.x1 - x0), Math.abs(s.y1 - y0));
+    case 'quad':
+      return Math.max(Math.max(0, Math.abs(s.x1 - x0), Math.abs(s.y1 - y0)), Math.abs(s.x2 - x0), Math.abs(s.y2 - y0));
+    case 'cubic':
+      return Math.max(
+        Math.max(Math.max(0, Math.abs(s.x1 - x0), Math.abs(s.y1 - y0)), Math.abs(s.x2 - x0), Math.abs(s.y2 - y0)),
+        Math.abs(s.x3 - x0), Math.abs(s.y3 - y0),
+      );
   }
-  const pts = s.kind === 'cubic' ? [s.x1, s.y1, s.x2, s.y2, s.x3, s.y3]
-    : s.kind === 'quad' ? [s.x1, s.y1, s.x2, s.y2]
-    : [s.x1, s.y1];
-  let m = 0;
-  for (let i = 0; i < pts.length; i += 2) m = Math.max(m, Math.abs(pts[i]! - s.x0), Math.abs(pts[i + 1]! - s.y0));
-  return m;
 }
 
 /**
@@ -220,7 +238,9 @@ function controlExtent(s: Segment): number {
  * contour whose last end point is not its start gets an implicit closing line (segment −1).
  */
 export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
-  const w = new PieceWriter();
+  let expected = 0;
+  for (const c of contours) expected += c.segments.length + 1;
+  const w = new PieceWriter(expected);
   const chains: PieceChain[] = [];
   let minKept = Infinity;
   for (let ci = 0; ci < contours.length; ci++) {
@@ -240,7 +260,9 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
           else addArc(w, ci, si, s);
           break;
       }
-      [lastX, lastY] = segmentEnd(s);
+      if (s.kind === 'cubic') { lastX = s.x3; lastY = s.y3; }
+      else if (s.kind === 'quad') { lastX = s.x2; lastY = s.y2; }
+      else { lastX = s.x1; lastY = s.y1; }
     }
     const gap = Math.hypot(lastX - c.startX, lastY - c.startY);
     if (gap > pointTol) minKept = Math.min(minKept, gap);

@@ -84,6 +84,47 @@ export function getPolynomialRoots(coefficients: readonly number[], lo: number, 
   return out;
 }
 
+/** Coefficients of the quadratic being solved by `addQuadraticRootsInUnitInterval`, reused. */
+const QUADRATIC = [0, 0, 0];
+
+/**
+ * Appends to `out` what `getPolynomialRoots([c0, c1, c2], 0, 1, 0)` returns, with the same
+ * floating-point operations in the same order and no allocation (buildPieces calls it twice per
+ * Bézier segment).
+ */
+export function addQuadraticRootsInUnitInterval(out: number[], c0: number, c1: number, c2: number): void {
+  if (c2 === 0) {
+    if (c1 === 0) return;
+    const r = -c0 / c1;
+    if (r >= 0 && r <= 1) out.push(r);
+    return;
+  }
+  const c = QUADRATIC;
+  c[0] = c0; c[1] = c1; c[2] = c2;
+  // The critical point, the root of the derivative [c1·1, c2·2], splits [0, 1] when strictly inside.
+  const crit = -(c1 * 1) / (c2 * 2);
+  const inside = crit > 0 && crit < 1;
+  let prev = Number.NaN;
+  let fa = evaluatePolynomial(c, 0);
+  if (Math.abs(fa) <= 0) { out.push(0); prev = 0; }
+  let a = 0;
+  for (let k = inside ? 0 : 1; k < 2; k++) {
+    const b = k === 0 ? crit : 1;
+    const fb = evaluatePolynomial(c, b);
+    if (fa !== 0 && fb !== 0 && (fa < 0) !== (fb < 0)) {
+      const x = bisect(c, a, b, fa);
+      if (x !== prev) out.push(x);
+      prev = x;
+    }
+    if (fb === 0 || Math.abs(fb) <= 0) {
+      if (b !== prev) out.push(b);
+      prev = b;
+    }
+    fa = fb;
+    a = b;
+  }
+}
+
 /**
  * Power-basis coefficients of one coordinate of a Bézier curve of degree 1–3 given its Bernstein
  * control values. [src: standard Bernstein-to-monomial conversion, e.g. Farin, *Curves and Surfaces

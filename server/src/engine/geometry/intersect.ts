@@ -695,14 +695,11 @@ export function findIntersections(contours: readonly Contour[], options: Interse
     index.add(Math.min(x0, x1) - eps, Math.min(y0, y1) - eps, Math.max(x0, x1) + eps, Math.max(y0, y1) + eps);
   }
   index.finish();
-  const boxes = new Float64Array(4 * P.count);
-  for (let i = 0; i < P.count; i++) {
-    const o = i * STRIDE;
-    boxes[4 * i] = Math.min(buf[o + 4]!, buf[o + 6]!);
-    boxes[4 * i + 1] = Math.min(buf[o + 5]!, buf[o + 7]!);
-    boxes[4 * i + 2] = Math.max(buf[o + 4]!, buf[o + 6]!);
-    boxes[4 * i + 3] = Math.max(buf[o + 5]!, buf[o + 7]!);
-  }
+  // A piece's box is the box of its end points (monotone pieces): read from buf, not copied.
+  const minX = (i: number) => Math.min(buf[i * STRIDE + 4]!, buf[i * STRIDE + 6]!);
+  const minY = (i: number) => Math.min(buf[i * STRIDE + 5]!, buf[i * STRIDE + 7]!);
+  const maxX = (i: number) => Math.max(buf[i * STRIDE + 4]!, buf[i * STRIDE + 6]!);
+  const maxY = (i: number) => Math.max(buf[i * STRIDE + 5]!, buf[i * STRIDE + 7]!);
   let current = 0;
   const filter = (j: number): boolean => {
     const i = current;
@@ -717,8 +714,8 @@ export function findIntersections(contours: readonly Contour[], options: Interse
           if (j === i + 1 ? linesMeetOnlyAtJoint(buf, i, j) : linesMeetOnlyAtJoint(buf, j, i)) return false;
         } else {
           // Monotone neighbours whose boxes meet in a zero-area region can share only their common end.
-          const w = Math.min(boxes[4 * i + 2]!, boxes[4 * j + 2]!) - Math.max(boxes[4 * i]!, boxes[4 * j]!);
-          const h = Math.min(boxes[4 * i + 3]!, boxes[4 * j + 3]!) - Math.max(boxes[4 * i + 1]!, boxes[4 * j + 1]!);
+          const w = Math.min(maxX(i), maxX(j)) - Math.max(minX(i), minX(j));
+          const h = Math.min(maxY(i), maxY(j)) - Math.max(minY(i), minY(j));
           if (!(w > 0 && h > 0)) return false;
         }
       }
@@ -729,7 +726,7 @@ export function findIntersections(contours: readonly Contour[], options: Interse
   for (let i = 0; i < P.count; i++) {
     if ((i & 4095) === 4095 && options.isCancelled?.()) break;
     current = i;
-    index.search(boxes[4 * i]! - eps, boxes[4 * i + 1]! - eps, boxes[4 * i + 2]! + eps, boxes[4 * i + 3]! + eps, filter);
+    index.search(minX(i) - eps, minY(i) - eps, maxX(i) + eps, maxY(i) + eps, filter);
   }
 
   // Overlap coverage, to drop the touches found at the ends of overlapping runs.

@@ -96,7 +96,12 @@ export function getSmallestEnclosingCircle(points: readonly Pt[]): Circle {
  */
 interface SearchPiece {
   readonly ax: number; readonly ay: number; readonly bx: number; readonly by: number;
-  readonly circle: { readonly cx: number; readonly cy: number; readonly r: number; readonly ccw: boolean } | null;
+  readonly circle: {
+    readonly cx: number; readonly cy: number; readonly r: number; readonly ccw: boolean;
+    /** Ends of the piece joined with the next piece on the same circle (a sector of at most a half
+     *  turn): distance bounds may use it, the distance to the pair being at most that to the piece. */
+    readonly span: readonly [number, number, number, number];
+  } | null;
 }
 
 /** The outline as search pieces, and the largest distance between it and the contour (δ). */
@@ -126,14 +131,22 @@ export function outlineFromPolyline(poly: Polyline): SearchOutline {
   const pts = poly.points, n = pts.length;
   const pieces: SearchPiece[] = [];
   let deviation = 0;
+  const endOf = (k: number) => (k + 1 < poly.pieces.length ? poly.pieces[k + 1]!.first : n);
   poly.pieces.forEach((p, k) => {
-    const end = k + 1 < poly.pieces.length ? poly.pieces[k + 1]!.first : n;
+    const end = endOf(k);
     const [ax, ay] = pts[p.first]!, [bx, by] = pts[end % n]!;
     const c = p.circle;
     if (c) {
       deviation = Math.max(deviation, c.deviationMm);
       const ccw = (ax - c.cx) * (by - c.cy) - (ay - c.cy) * (bx - c.cx) > 0;
-      pieces.push({ ax, ay, bx, by, circle: { cx: c.cx, cy: c.cy, r: c.r, ccw } });
+      const j = (k + 1) % poly.pieces.length;
+      const nc = poly.pieces[j]!.circle;
+      const span: [number, number, number, number] = [ax, ay, bx, by];
+      if (j !== k && nc && nc.cx === c.cx && nc.cy === c.cy && nc.r === c.r) {
+        const [ex, ey] = pts[endOf(j) % n]!;
+        if (((bx - c.cx) * (ey - c.cy) - (by - c.cy) * (ex - c.cx) > 0) === ccw) { span[2] = ex; span[3] = ey; }
+      }
+      pieces.push({ ax, ay, bx, by, circle: { cx: c.cx, cy: c.cy, r: c.r, ccw, span } });
       return;
     }
     deviation = Math.max(deviation, p.deviationMm);
@@ -146,11 +159,15 @@ export function outlineFromPolyline(poly: Polyline): SearchOutline {
 }
 
 /** Whether the direction (dx, dy) from a circle piece's centre lies in its sector. */
-function inSector(p: SearchPiece, dx: number, dy: number): boolean {
+function inSector(p: SearchPiece, dx: number, dy: number, ax = p.ax, ay = p.ay, bx = p.bx, by = p.by): boolean {
   const c = p.circle!;
-  const [sx, sy, ex, ey] = c.ccw ? [p.ax - c.cx, p.ay - c.cy, p.bx - c.cx, p.by - c.cy] : [p.bx - c.cx, p.by - c.cy, p.ax - c.cx, p.ay - c.cy];
+  const sx = (c.ccw ? ax : bx) - c.cx, sy = (c.ccw ? ay : by) - c.cy;
+  const ex = (c.ccw ? bx : ax) - c.cx, ey = (c.ccw ? by : ay) - c.cy;
   return sx * dy - sy * dx >= 0 && dx * ey - dy * ex >= 0;
 }
+
+/** Whether the direction lies in the piece's span (its sector joined with the next one's). */
+const inSpan = (p: SearchPiece, dx: number, dy: number) => inSector(p, dx, dy, ...p.circle!.span);
 
 function pieceBox(p: SearchPiece): [number, number, number, number] {
   let minX = Math.min(p.ax, p.bx), minY = Math.min(p.ay, p.by), maxX = Math.max(p.ax, p.bx), maxY = Math.max(p.ay, p.by);
@@ -168,29 +185,43 @@ function pieceBox(p: SearchPiece): [number, number, number, number] {
   return [minX, minY, maxX, maxY];
 }
 
+/** √(x² + y²); Math.hypot guards against overflow, which mm-sized outlines never reach, at several times the cost. */
+const len = (x: number, y: number) => Math.sqrt(x * x + y * y);
+
 function distToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
   const dx = bx - ax, dy = by - ay;
   const l2 = dx * dx + dy * dy;
   let t = l2 === 0 ? 0 : ((x - ax) * dx + (y - ay) * dy) / l2;
   t = t < 0 ? 0 : t > 1 ? 1 : t;
-  return Math.hypot(x - ax - t * dx, y - ay - t * dy);
+  return len(x - ax - t * dx, y - ay - t * dy);
 }
 
 function distToPiece(p: SearchPiece, x: number, y: number): number {
   const c = p.circle;
   if (!c) return distToSegment(x, y, p.ax, p.ay, p.bx, p.by);
   const dx = x - c.cx, dy = y - c.cy;
-  const ends = Math.min(Math.hypot(x - p.ax, y - p.ay), Math.hypot(x - p.bx, y - p.by));
-  return (dx !== 0 || dy !== 0) && inSector(p, dx, dy) ? Math.min(ends, Math.abs(Math.hypot(dx, dy) - c.r)) : ends;
+  const ends = Math.min(len(x - p.ax, y - p.ay), len(x - p.bx, y - p.by));
+  return (dx !== 0 || dy !== 0) && inSector(p, dx, dy) ? Math.min(ends, Math.abs(len(dx, dy) - c.r)) : ends;
 }
 
-function farthestOnPiece(p: SearchPiece, x: number, y: number): number {
-  const ends = Math.max(Math.hypot(x - p.ax, y - p.ay), Math.hypot(x - p.bx, y - p.by));
+/** The largest distance from (x, y) to the piece. */
+function farthestDistance(p: SearchPiece, x: number, y: number): number {
+  const ends = Math.max(len(x - p.ax, y - p.ay), len(x - p.bx, y - p.by));
   const c = p.circle;
   if (!c) return ends;
   const dx = c.cx - x, dy = c.cy - y;
-  if (dx === 0 && dy === 0) return Math.max(ends, c.r);
-  return inSector(p, dx, dy) ? Math.max(ends, Math.hypot(dx, dy) + c.r) : ends;
+  return (dx !== 0 || dy !== 0) && inSector(p, dx, dy) ? Math.max(ends, len(dx, dy) + c.r) : ends;
+}
+
+/** The farthest point of the piece from (x, y): [distance, px, py]. */
+function farthestOnPiece(p: SearchPiece, x: number, y: number): [number, number, number] {
+  const da = len(x - p.ax, y - p.ay), db = len(x - p.bx, y - p.by);
+  const ends: [number, number, number] = da >= db ? [da, p.ax, p.ay] : [db, p.bx, p.by];
+  const c = p.circle;
+  if (!c) return ends;
+  const dx = c.cx - x, dy = c.cy - y, l = len(dx, dy);
+  if (l === 0 || !inSector(p, dx, dy) || l + c.r <= ends[0]) return ends;
+  return [l + c.r, c.cx + (c.r * dx) / l, c.cy + (c.r * dy) / l];
 }
 
 /** x where the piece crosses the height y, when it does (half-open in y, so shared ends count once). */
@@ -205,37 +236,130 @@ function crossingX(p: SearchPiece, y: number): number | null {
 }
 
 /**
- * A linear function g ≥ the distance to the piece over the square cell (centre x, y, half-side h),
- * when one exists: for a segment, if the whole cell projects inside it on one side, the distance is
- * linear there; for a circle piece, if the whole cell is inside the circle and in the sector, the
- * distance is r − |p − C| there, below its tangent plane at the cell's centre (Cauchy–Schwarz).
- * Corners suffice: the strip, half-plane, disc and sector (≤ a quarter turn) are convex.
+ * A linear function g ≥ |p − V| over the square cell (centre x, y, half-side h), for a point V at
+ * distance D from the centre: with u the unit vector from V to the centre and y = p − V,
+ * |y| = √((u·y)² + |y⊥|²) ≤ u·y + |y⊥|²/(2 u·y), where over the cell |y⊥| ≤ w and u·y ≥ D − w for
+ * w = h(|uₓ| + |u_y|), the cell's half-width across and along u. Needs D > w.
  */
-function linearUpperBound(p: SearchPiece, x: number, y: number, h: number): [number, number, number] | null {
-  const corners = [x - h, y - h, x + h, y - h, x - h, y + h, x + h, y + h];
+function pointUpperBound(vx: number, vy: number, x: number, y: number, h: number): [number, number, number] | null {
+  const D = len(x - vx, y - vy);
+  if (D === 0) return null;
+  const ux = (x - vx) / D, uy = (y - vy) / D, w = h * (Math.abs(ux) + Math.abs(uy));
+  if (D <= w) return null;
+  return [ux, uy, -(ux * vx + uy * vy) + (w * w) / (2 * (D - w))];
+}
+
+/**
+ * An upper bound over a cell (centre x₀): a·x + b·y + c − β((x − x₀)·(px, py))², β ≥ 0. The
+ * quadratic term records the curvature of a concave distance (β = 0 when there is none to use).
+ */
+type Bound = [number, number, number, number, number, number];
+
+/**
+ * The β of −|p − V| over a cell, for V at distance D from the centre along the unit vector u:
+ * |y| − u·y = |y⊥|²/(|y| + u·y) ≥ |y⊥|²/(2(D + w)), w = h(|uₓ| + |u_y|), and y⊥ = e·u⊥ for the
+ * offset e from the centre.
+ */
+const concavity = (D: number, ux: number, uy: number, h: number) => 1 / (2 * (D + h * (Math.abs(ux) + Math.abs(uy))));
+
+/**
+ * max over e ∈ [−h, h]² of k + g·e − eᵀMe for positive semi-definite M (sum of β·a·aᵀ), exact: a
+ * concave function on a square peaks at its stationary point if that lies inside, else on a side,
+ * where it is a concave parabola peaking at its clamped vertex. A singular M leaves a maximiser on
+ * the boundary as well.
+ */
+function maxConcaveQuadratic(k: number, gx: number, gy: number, m11: number, m12: number, m22: number, h: number): number {
+  const q = (ex: number, ey: number) => k + gx * ex + gy * ey - (m11 * ex * ex + 2 * m12 * ex * ey + m22 * ey * ey);
+  const vertex = (lin: number, quad: number) => (quad > 0 ? Math.min(h, Math.max(-h, lin / (2 * quad))) : lin >= 0 ? h : -h);
+  let best = -Infinity;
+  for (const side of [-h, h]) {
+    best = Math.max(best, q(side, vertex(gy - 2 * m12 * side, m22)), q(vertex(gx - 2 * m12 * side, m11), side));
+  }
+  const det = m11 * m22 - m12 * m12;
+  if (det > 1e-12 * m11 * m22) {
+    const ex = (m22 * gx - m12 * gy) / (2 * det), ey = (m11 * gy - m12 * gx) / (2 * det);
+    if (Math.abs(ex) <= h && Math.abs(ey) <= h) best = Math.max(best, q(ex, ey));
+  }
+  return best;
+}
+
+/**
+ * A linear function g ≥ the distance to the piece over the square cell (centre x, y, half-side h):
+ * for a segment, if the whole cell projects inside it on one side, the distance is linear there;
+ * for a circle piece, if the whole cell is inside the circle and in the sector, the distance is
+ * r − |p − C| there, below its tangent plane at the cell's centre (Cauchy–Schwarz); if it is wholly
+ * outside the disc and in the sector, |p − C| − r, bounded by `pointUpperBound` for C. Testing the
+ * corners suffices for the strip, half-plane, disc and sector (≤ a quarter turn), which are convex.
+ */
+function linearUpperBound(p: SearchPiece, x: number, y: number, h: number): Bound | null {
   const c = p.circle;
+  let valid = true;
   if (!c) {
-    const dx = p.bx - p.ax, dy = p.by - p.ay, l = Math.hypot(dx, dy);
-    if (l === 0) return null;
+    const dx = p.bx - p.ax, dy = p.by - p.ay, l = len(dx, dy);
     let sign = 0;
-    for (let k = 0; k < 8; k += 2) {
-      const qx = corners[k]! - p.ax, qy = corners[k + 1]! - p.ay;
+    for (let k = 0; k < 4 && l > 0; k++) {
+      const qx = x + (k & 1 ? h : -h) - p.ax, qy = y + (k & 2 ? h : -h) - p.ay;
       const t = (qx * dx + qy * dy) / (l * l);
-      if (t < 0 || t > 1) return null;
       const s = Math.sign(dx * qy - dy * qx);
-      if (s !== 0) { if (sign !== 0 && s !== sign) return null; sign = s; }
+      if (t < 0 || t > 1 || (s !== 0 && sign !== 0 && s !== sign)) { valid = false; break; }
+      if (s !== 0) sign = s;
     }
-    const a = ((sign || 1) * -dy) / l, b = ((sign || 1) * dx) / l;
-    return [a, b, -(a * p.ax + b * p.ay)];
+    if (l > 0 && valid) {
+      const a = ((sign || 1) * -dy) / l, b = ((sign || 1) * dx) / l;
+      return [a, b, -(a * p.ax + b * p.ay), 0, 0, 0];
+    }
+  } else {
+    let inCircle = 0;
+    for (let k = 0; k < 4; k++) {
+      const dx = x + (k & 1 ? h : -h) - c.cx, dy = y + (k & 2 ? h : -h) - c.cy;
+      if (!inSpan(p, dx, dy)) { valid = false; break; }
+      if (len(dx, dy) <= c.r) inCircle++;
+    }
+    const l = len(x - c.cx, y - c.cy);
+    if (valid && inCircle === 4 && l > 0) {
+      const ux = (x - c.cx) / l, uy = (y - c.cy) / l;
+      return [-ux, -uy, c.r + ux * c.cx + uy * c.cy, concavity(l, ux, uy, h), -uy, ux];
+    }
+    if (valid && len(Math.max(0, Math.abs(x - c.cx) - h), Math.max(0, Math.abs(y - c.cy) - h)) >= c.r) {
+      // The whole cell is outside the disc: the distance is |p − C| − r.
+      const g = pointUpperBound(c.cx, c.cy, x, y, h);
+      if (g) return [g[0], g[1], g[2] - c.r, 0, 0, 0];
+    }
   }
-  for (let k = 0; k < 8; k += 2) {
-    const dx = corners[k]! - c.cx, dy = corners[k + 1]! - c.cy;
-    if (Math.hypot(dx, dy) > c.r || !inSector(p, dx, dy)) return null;
+  const aNearer = len(x - p.ax, y - p.ay) <= len(x - p.bx, y - p.by);
+  const g = aNearer ? pointUpperBound(p.ax, p.ay, x, y, h) : pointUpperBound(p.bx, p.by, x, y, h);
+  return g && [g[0], g[1], g[2], 0, 0, 0];
+}
+
+/**
+ * A linear g ≥ dist(p, inner) − farthest(p) over the cell when `inner` is a circle piece (centre C₂,
+ * radius r₂) with the cell wholly outside its disc and in its sector, and `outer` a circle piece
+ * (C₁, r₁) whose farthest point from every point of the cell lies in its sector, so the difference
+ * is |y₂| − r₂ − |y₁| − r₁ (yᵢ = p − Cᵢ). With uᵢ the unit vector from Cᵢ to the centre, e the offset
+ * from the centre, wᵢ = h‖uᵢ‖₁ and aᵢ = uᵢ⊥ (signs matched): |y₂| ≤ u₂·y₂ + (e·a₂)²/(2(D₂ − w₂)) and
+ * |y₁| ≥ u₁·y₁ + (e·a₁)²/(2(D₁ + w₁)); with α, β those two factors, α(e·a₂)² − β(e·a₁)² ≤
+ * max(0, α − β)·w₂² + β·h²‖a₂ − a₁‖₁‖a₂ + a₁‖₁. The curvatures cancel where the two centres line up
+ * with the cell, so a ridge of the zone width (a crescent's axis) closes instead of being split
+ * into ever smaller cells.
+ */
+function circleGapUpperBound(inner: SearchPiece, outer: SearchPiece, x: number, y: number, h: number): [number, number, number] | null {
+  const c2 = inner.circle, c1 = outer.circle;
+  if (!c2 || !c1 || inner === outer) return null;
+  if (len(Math.max(0, Math.abs(x - c2.cx) - h), Math.max(0, Math.abs(y - c2.cy) - h)) < c2.r) return null;
+  for (let k = 0; k < 4; k++) {
+    const px = x + (k & 1 ? h : -h), py = y + (k & 2 ? h : -h);
+    if (!inSpan(inner, px - c2.cx, py - c2.cy) || !inSpan(outer, c1.cx - px, c1.cy - py)) return null;
   }
-  const l = Math.hypot(x - c.cx, y - c.cy);
-  if (l === 0) return null;
-  const ux = (x - c.cx) / l, uy = (y - c.cy) / l;
-  return [-ux, -uy, c.r + ux * c.cx + uy * c.cy];
+  const D2 = len(x - c2.cx, y - c2.cy), D1 = len(x - c1.cx, y - c1.cy);
+  if (D2 === 0 || D1 === 0) return null;
+  const u2x = (x - c2.cx) / D2, u2y = (y - c2.cy) / D2, u1x = (x - c1.cx) / D1, u1y = (y - c1.cy) / D1;
+  const w2 = h * (Math.abs(u2x) + Math.abs(u2y)), w1 = h * (Math.abs(u1x) + Math.abs(u1y));
+  if (D2 <= w2) return null;
+  const alpha = 1 / (2 * (D2 - w2)), beta = 1 / (2 * (D1 + w1));
+  const s = u1x * u2x + u1y * u2y >= 0 ? 1 : -1;
+  const diff = Math.abs(u2y - s * u1y) + Math.abs(u2x - s * u1x), sum = Math.abs(u2y + s * u1y) + Math.abs(u2x + s * u1x);
+  const rem = Math.max(0, alpha - beta) * w2 * w2 + beta * h * h * diff * sum;
+  return [u2x - u1x, u2y - u1y, -(u2x * c2.cx + u2y * c2.cy) + u1x * c1.cx + u1y * c1.cy - c2.r - c1.r + rem];
 }
 
 /**
@@ -244,25 +368,29 @@ function linearUpperBound(p: SearchPiece, x: number, y: number, h: number): [num
  * every such point is tried (points just outside the box only raise the answer, which stays an
  * upper bound).
  */
-function maxOfMinLinear(gs: readonly (readonly [number, number, number])[], x0: number, y0: number, h: number): number {
+let lpA = new Float64Array(16), lpB = new Float64Array(16), lpC = new Float64Array(16);
+function maxOfMinLinear(gs: readonly (readonly number[])[], x0: number, y0: number, h: number): number {
   // Coordinates relative to the cell's centre: g(x0 + u, y0 + v) = a u + b v + (a x0 + b y0 + c).
-  const rel = gs.map(([a, b, c]) => [a, b, a * x0 + b * y0 + c] as const);
-  const lo = -h * (1 + 1e-9), hi = h * (1 + 1e-9);
+  const m = gs.length;
+  if (lpA.length < m) { lpA = new Float64Array(2 * m); lpB = new Float64Array(2 * m); lpC = new Float64Array(2 * m); }
+  const A = lpA, B = lpB, C = lpC;
+  for (let i = 0; i < m; i++) { const g = gs[i]!; A[i] = g[0]!; B[i] = g[1]!; C[i] = g[0]! * x0 + g[1]! * y0 + g[2]!; }
+  const lim = h * (1 + 1e-9);
   let best = -Infinity;
   const tryAt = (u: number, v: number) => {
-    if (!(u >= lo && u <= hi && v >= lo && v <= hi)) return;
-    let m = Infinity;
-    for (const [a, b, c] of rel) m = Math.min(m, a * u + b * v + c);
-    best = Math.max(best, m);
+    if (!(Math.abs(u) <= lim && Math.abs(v) <= lim)) return;
+    let low = Infinity;
+    for (let i = 0; i < m; i++) { const g = A[i]! * u + B[i]! * v + C[i]!; if (g < low) { low = g; if (low <= best) return; } }
+    best = low;
   };
   tryAt(-h, -h); tryAt(h, -h); tryAt(-h, h); tryAt(h, h);
-  for (let i = 0; i < rel.length; i++) {
-    for (let j = i + 1; j < rel.length; j++) {
-      const da = rel[i]![0] - rel[j]![0], db = rel[i]![1] - rel[j]![1], dc = rel[i]![2] - rel[j]![2];
-      for (const u of [-h, h]) if (db !== 0) tryAt(u, -(da * u + dc) / db);
-      for (const v of [-h, h]) if (da !== 0) tryAt(-(db * v + dc) / da, v);
-      for (let k = j + 1; k < rel.length; k++) {
-        const ea = rel[i]![0] - rel[k]![0], eb = rel[i]![1] - rel[k]![1], ec = rel[i]![2] - rel[k]![2];
+  for (let i = 0; i < m; i++) {
+    for (let j = i + 1; j < m; j++) {
+      const da = A[i]! - A[j]!, db = B[i]! - B[j]!, dc = C[i]! - C[j]!;
+      if (db !== 0) { tryAt(-h, -(dc - da * h) / db); tryAt(h, -(dc + da * h) / db); }
+      if (da !== 0) { tryAt(-(dc - db * h) / da, -h); tryAt(-(dc + db * h) / da, h); }
+      for (let k = j + 1; k < m; k++) {
+        const ea = A[i]! - A[k]!, eb = B[i]! - B[k]!, ec = C[i]! - C[k]!;
         const det = da * eb - db * ea;
         if (det !== 0) tryAt((-dc * eb + db * ec) / det, (-da * ec + dc * ea) / det);
       }
@@ -271,93 +399,143 @@ function maxOfMinLinear(gs: readonly (readonly [number, number, number])[], x0: 
   return best;
 }
 
-/** How many of the nearest pieces feed the linear-programme bound of a cell. */
-const BOUND_PIECES = 4;
+/** How many of the nearest pieces, and of the farthest, feed the linear-programme bound of a cell. */
+const BOUND_NEAR = 3, BOUND_FAR = 2;
+/** Below this many pieces a scan is cheaper than the index. */
+const SCAN_PIECES = 48;
+/** Pieces per run of the farthest-distance scan. */
+const FARTHEST_RUN = 32;
 
 /**
- * Distance queries on an outline from a flatbush index of its pieces, with the same results as
- * scanning every piece:
+ * Distance queries on an outline, from a flatbush index of its pieces (or a scan when there are
+ * few), with the same results as scanning every piece:
  * - nearest: the piece nearest by box gives an upper bound d0 on the distance; every piece at
  *   distance ≤ d0 has its box within the square of half-side d0, so the minimum over those is exact;
  * - inside (even-odd): a piece crossing the ray to the right of the point has a box meeting that ray;
- * - `upper(x, y, h)`: an upper bound on the distance over the cell, the smaller of the Lipschitz bound
- *   d + h√2 and the linear programme over the linear bounds of the BOUND_PIECES nearest pieces.
+ * - farthest: pieces in runs of FARTHEST_RUN with their boxes, scanned in order of the farthest
+ *   corner of the box (an upper bound) until that bound falls below the BOUND_FAR-th best distance.
  */
 function createOutlineDistance(outline: SearchOutline) {
   const pieces = outline.pieces, n = pieces.length;
+  const boxes = pieces.map(pieceBox);
   const index = new Flatbush(Math.max(1, n));
-  for (const p of pieces) index.add(...pieceBox(p));
+  for (const b of boxes) index.add(...b);
   if (n === 0) index.add(0, 0, 0, 0);
   index.finish();
+  const all = pieces.map((_, i) => i);
   const near: number[] = [], nearD: number[] = [];
   const nearest = (x: number, y: number, keep: number) => {
     near.length = 0; nearD.length = 0;
     if (n === 0) return Infinity;
-    const d0 = distToPiece(pieces[index.neighbors(x, y, 1)[0]!]!, x, y);
-    for (const i of index.search(x - d0, y - d0, x + d0, y + d0)) {
+    let candidates = all;
+    if (n > SCAN_PIECES) {
+      const d0 = distToPiece(pieces[index.neighbors(x, y, 1)[0]!]!, x, y);
+      candidates = index.search(x - d0, y - d0, x + d0, y + d0);
+    }
+    for (const i of candidates) {
       const d = distToPiece(pieces[i]!, x, y);
       if (near.length === keep && d >= nearD[keep - 1]!) continue;
       let k = Math.min(near.length, keep - 1);
       near[k] = i; nearD[k] = d;
       while (k > 0 && nearD[k - 1]! > d) { near[k] = near[k - 1]!; nearD[k] = nearD[k - 1]!; near[k - 1] = i; nearD[k - 1] = d; k--; }
     }
-    return nearD[0] ?? d0;
+    return nearD[0]!;
   };
   const inside = (x: number, y: number) => {
     let odd = false;
-    for (const i of index.search(x, y, index.maxX, y)) {
+    for (const i of n > SCAN_PIECES ? index.search(x, y, index.maxX, y) : all) {
       const cx = crossingX(pieces[i]!, y);
       if (cx !== null && x < cx) odd = !odd;
     }
     return odd;
   };
-  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
-  return {
-    distance: (x: number, y: number) => nearest(x, y, 1),
-    /** Signed distance (positive inside) at the cell's centre and an upper bound over the cell. */
-    signedWithBound: (x: number, y: number, h: number) => {
-      const d = nearest(x, y, BOUND_PIECES);
-      const f = inside(x, y) ? d : -d;
-      let upper = f + h * Math.SQRT2;
-      const gs: [number, number, number][] = [];
-      for (const i of near) { const g = linearUpperBound(pieces[i]!, x, y, h); if (g) gs.push(g); }
-      if (gs.length > 0) upper = Math.min(upper, maxOfMinLinear(gs, x, y, h) + slack);
-      return { f, upper };
-    },
-  };
-}
-
-/**
- * Largest distance from a point to the outline, exact: the pieces are grouped in runs of
- * FARTHEST_RUN with their boxes; runs are scanned in order of the farthest corner of their box
- * (an upper bound) until that bound falls below the best distance found.
- */
-const FARTHEST_RUN = 32;
-function createFarthestDistance(outline: SearchOutline): (x: number, y: number) => number {
-  const pieces = outline.pieces;
   const runs: [number, number, number, number, number][] = [];
-  for (let s = 0; s < pieces.length; s += FARTHEST_RUN) {
+  for (let s = 0; s < n; s += FARTHEST_RUN) {
     let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (let k = s; k < Math.min(pieces.length, s + FARTHEST_RUN); k++) {
-      const [x0, y0, x1, y1] = pieceBox(pieces[k]!);
+    for (let k = s; k < Math.min(n, s + FARTHEST_RUN); k++) {
+      const [x0, y0, x1, y1] = boxes[k]!;
       minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
     }
     runs.push([s, minX, minY, maxX, maxY]);
   }
-  const bounds = new Float64Array(runs.length);
+  const runBound = new Float64Array(runs.length);
   const order = runs.map((_, k) => k);
-  return (x, y) => {
+  const far: [number, number, number][] = [], farPiece: number[] = [];
+  /** The farthest distance; `far` holds the BOUND_FAR farthest pieces' farthest points, farthest first. */
+  const farD: number[] = [];
+  const farthest = (x: number, y: number) => {
+    far.length = 0; farD.length = 0; farPiece.length = 0;
     runs.forEach(([, minX, minY, maxX, maxY], k) => {
-      bounds[k] = Math.hypot(Math.max(x - minX, maxX - x), Math.max(y - minY, maxY - y));
+      runBound[k] = len(Math.max(x - minX, maxX - x), Math.max(y - minY, maxY - y));
     });
-    order.sort((p, q) => bounds[q]! - bounds[p]!);
-    let best = 0;
+    if (runs.length > 1) order.sort((p, q) => runBound[q]! - runBound[p]!);
     for (const k of order) {
-      if (bounds[k]! <= best) break;
+      if (farD.length === BOUND_FAR && runBound[k]! <= farD[BOUND_FAR - 1]!) break;
       const s = runs[k]![0];
-      for (let i = s; i < Math.min(pieces.length, s + FARTHEST_RUN); i++) best = Math.max(best, farthestOnPiece(pieces[i]!, x, y));
+      for (let i = s; i < Math.min(n, s + FARTHEST_RUN); i++) {
+        const d = farthestDistance(pieces[i]!, x, y);
+        if (farD.length === BOUND_FAR && d <= farD[BOUND_FAR - 1]!) continue;
+        let j = Math.min(farD.length, BOUND_FAR - 1);
+        farD[j] = d; farPiece[j] = i;
+        while (j > 0 && farD[j - 1]! < d) { farD[j] = farD[j - 1]!; farPiece[j] = farPiece[j - 1]!; farD[j - 1] = d; farPiece[j - 1] = i; j--; }
+      }
     }
-    return best;
+    for (const i of farPiece) far.push(farthestOnPiece(pieces[i]!, x, y));
+    return farD[0] ?? 0;
+  };
+  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
+  const nearBounds = (x: number, y: number, h: number) => {
+    const gs: Bound[] = [];
+    for (const i of near) { const g = linearUpperBound(pieces[i]!, x, y, h); if (g) gs.push(g); }
+    return gs;
+  };
+  return {
+    /** Signed distance (positive inside) at the cell's centre and an upper bound over the cell. */
+    signedWithBound: (x: number, y: number, h: number) => {
+      const d = nearest(x, y, BOUND_NEAR);
+      const f = inside(x, y) ? d : -d;
+      let upper = f + h * Math.SQRT2;
+      const gs = nearBounds(x, y, h);
+      if (gs.length > 0) upper = Math.min(upper, maxOfMinLinear(gs, x, y, h) + slack);
+      return { f, upper };
+    },
+    /**
+     * Minus the zone width (farthest − nearest) at the cell's centre and an upper bound over the
+     * cell: the Lipschitz bound (constant 2), or min over pairs of g_near − ℓ_far, where ℓ(p) =
+     * u·(p − Q) ≤ |p − Q| ≤ farthest(p) for a farthest point Q and u the unit vector from Q to the centre.
+     */
+    negWidthWithBound: (x: number, y: number, h: number) => {
+      const f = nearest(x, y, BOUND_NEAR) - farthest(x, y);
+      let upper = f + 2 * h * Math.SQRT2;
+      const gs = nearBounds(x, y, h);
+      const pairs: [number, number, number][] = [];
+      far.forEach(([D0, qx0, qy0], k) => {
+        let D = D0, qx = qx0, qy = qy0;
+        if (D === 0) return;
+        // farthest(p) ≥ |p − Q| + r for Q = C of a circle piece whose farthest direction from every
+        // point of the cell lies in its span, else ≥ |p − Q| (r = 0) for the farthest point Q found.
+        const outer = pieces[farPiece[k]!]!, oc = outer.circle;
+        let r = 0;
+        if (oc && len(Math.max(0, Math.abs(x - oc.cx) - h), Math.max(0, Math.abs(y - oc.cy) - h)) > 0) {
+          let spans = true;
+          for (let t = 0; t < 4 && spans; t++) spans = inSpan(outer, oc.cx - x - (t & 1 ? h : -h), oc.cy - y - (t & 2 ? h : -h));
+          if (spans) { qx = oc.cx; qy = oc.cy; r = oc.r; D = len(x - qx, y - qy); }
+        }
+        // −farthest ≤ −|p − Q| − r ≤ −u·(p − Q) − r − β(e·u⊥)².
+        const ux = (x - qx) / D, uy = (y - qy) / D, beta = concavity(D, ux, uy, h), k0 = -(ux * qx + uy * qy) + r;
+        for (const [a, b, c, gb, px, py] of gs) {
+          pairs.push([a - ux, b - uy, c - k0]);
+          const qp = maxConcaveQuadratic((a - ux) * x + (b - uy) * y + c - k0, a - ux, b - uy,
+            gb * px * px + beta * uy * uy, gb * px * py - beta * ux * uy, gb * py * py + beta * ux * ux, h);
+          upper = Math.min(upper, qp + slack);
+        }
+        for (const i of near) { const g = circleGapUpperBound(pieces[i]!, outer, x, y, h); if (g) pairs.push(g); }
+      });
+      if (pairs.length > 0) upper = Math.min(upper, maxOfMinLinear(pairs, x, y, h) + slack);
+      return { f, upper };
+    },
+    /** Zone width and outer radius about a point. */
+    width: (x: number, y: number) => { const outer = farthest(x, y); return { width: outer - nearest(x, y, 1), outer }; },
   };
 }
 
@@ -433,25 +611,22 @@ function maximise(evaluate: (x: number, y: number, h: number) => { f: number; up
  * `errorBound` (its gap); the outline's own deviation δ is the caller's to add.
  */
 function minimumZoneOf(outline: SearchOutline, mec: Circle, tolerance?: number) {
-  const farthest = createFarthestDistance(outline);
   const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * 2 * mec.r;
-  const { distance } = createOutlineDistance(outline);
-  const width = (x: number, y: number) => farthest(x, y) - distance(x, y);
+  const { negWidthWithBound, width } = createOutlineDistance(outline);
   const r = maximise(
-    (x, y, h) => { const f = -width(x, y); return { f, upper: f + 2 * h * Math.SQRT2 }; },
+    negWidthWithBound,
     [mec.x - mec.r, mec.y - mec.r, mec.x + mec.r, mec.y + mec.r], tol,
-    (x, y, h) => Math.hypot(x - mec.x, y - mec.y) <= mec.r + h * Math.SQRT2,
+    (x, y, h) => len(x - mec.x, y - mec.y) <= mec.r + h * Math.SQRT2,
   );
   // Clamp the best centre into the disc (cells may overhang it) and re-evaluate.
   let { x, y } = r;
-  const dc = Math.hypot(x - mec.x, y - mec.y);
+  const dc = len(x - mec.x, y - mec.y);
   if (dc > mec.r) { x = mec.x + ((x - mec.x) * mec.r) / dc; y = mec.y + ((y - mec.y) * mec.r) / dc; }
-  const value = width(x, y);
-  const outer = farthest(x, y);
+  const { width: value, outer } = width(x, y);
   return {
     widthMm: value, centreX: x, centreY: y, outerRadiusMm: outer, innerRadiusMm: outer - value,
     errorBoundMm: Math.max(0, value + r.upper), capped: r.capped,
-    onSearchRim: Math.hypot(x - mec.x, y - mec.y) >= mec.r * (1 - 1e-6),
+    onSearchRim: len(x - mec.x, y - mec.y) >= mec.r * (1 - 1e-6),
   };
 }
 
@@ -475,7 +650,7 @@ function inscribedCircleOf(outline: SearchOutline, tolerance?: number) {
     const [x0, y0, x1, y1] = pieceBox(p);
     minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
   }
-  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * Math.hypot(maxX - minX, maxY - minY);
+  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * len(maxX - minX, maxY - minY);
   const { signedWithBound } = createOutlineDistance(outline);
   const r = maximise(signedWithBound, [minX, minY, maxX, maxY], tol, () => true);
   return { radiusMm: r.f, centreX: r.x, centreY: r.y, errorBoundMm: Math.max(0, r.upper - r.f), capped: r.capped };
@@ -528,7 +703,7 @@ const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBo
  */
 export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCrossing: boolean): RoundnessFigures {
   const [a, b, c, d] = metrics.bboxMm;
-  const size = Math.hypot(c - a, d - b);
+  const size = len(c - a, d - b);
   const poly = getContourPolyline(contour, ROUNDNESS_FLATTENING_RELATIVE * size);
   const hullFigures = getPolylineHull(poly);
   const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }

@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { contourFromSegments, ellipseArc, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
+import { arc, circleArcs, contourFromSegments, contoursFromPathData, ellipseArc, line, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import { measureContour } from './measure';
 import { getContourPolyline, getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
+import { getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
 /** Roundness and hull of a contour, told whether it crosses itself by the intersection search. */
@@ -110,5 +110,150 @@ describe('inequalities on random shapes (fast-check, seeded)', () => {
       const w2 = getWindingSquaredArea(pts);
       expect(m.lengthMm ** 2).toBeGreaterThanOrEqual(4 * Math.PI * w2 * (1 - 1e-12));
     }), { seed: 9, numRuns: 300 });
+  });
+});
+
+describe('cell bounds close plateaus and ridges (linear and concave-quadratic programmes)', () => {
+  it('gives a circle drawn as two arcs R = ρ = r and t_MZ = 0 to rounding (REFERENCES.md §2.1, §3.1)', () => {
+    const r = figuresOf(contourFromSegments(circleArcs(3, -2, 5, 2), true));
+    expect(Math.abs(r.inradius.value!.valueMm - 5)).toBeLessThanOrEqual(1e-12);
+    expect(r.inradius.value!.errorBoundMm).toBeLessThanOrEqual(1e-12);
+    expect(r.minZone.value!.valueMm).toBeLessThanOrEqual(1e-12);
+    expect(r.minZone.value!.errorBoundMm).toBeLessThanOrEqual(1e-12);
+  });
+
+  it('closes the inradius plateau of a 3×1 rectangle: ρ = 1/2 with a bound under 1e-9 of the size (REFERENCES.md §2.3)', () => {
+    const lic = getLargestInscribedCircle([[0, 0], [3, 0], [3, 1], [0, 1]]);
+    expect(lic.capped).toBe(false);
+    expect(Math.abs(lic.radiusMm - 0.5)).toBeLessThanOrEqual(lic.errorBoundMm + 1e-15);
+    expect(lic.errorBoundMm).toBeLessThanOrEqual(1e-9 * Math.hypot(3, 1));
+  });
+
+  it('closes the inradius plateau of a stadium a = 2, r = 1: ρ = r = 1 (REFERENCES.md §2.5)', () => {
+    const c = contourFromSegments([
+      line(0, -1, 2, -1), arc(2, 0, 1, 0, 0, 1, -Math.PI / 2, Math.PI),
+      line(2, 1, 0, 1), arc(0, 0, 1, 0, 0, 1, Math.PI / 2, Math.PI),
+    ], true);
+    const r = figuresOf(c);
+    expect(Math.abs(r.inradius.value!.valueMm - 1)).toBeLessThanOrEqual(r.inradius.value!.errorBoundMm + 1e-12);
+    expect(r.inradius.value!.errorBoundMm).toBeLessThanOrEqual(1e-8);
+  });
+
+  // A convex polygon's largest inscribed circle is its Chebyshev centre, an LP in (x, y, r)
+  // (REFERENCES.md §3.3, Boyd & Vandenberghe §8.5.1): its optimum is a vertex where three edge
+  // constraints r = bᵢ − nᵢ·x are tight, so trying every triple finds it exactly.
+  const chebyshevRadius = (pts: readonly (readonly [number, number])[]) => {
+    const edges = pts.map((a, i) => {
+      const b = pts[(i + 1) % pts.length]!, l = Math.hypot(b[0] - a[0], b[1] - a[1]);
+      const nx = (b[1] - a[1]) / l, ny = -(b[0] - a[0]) / l; // outward for a counter-clockwise loop
+      return [nx, ny, nx * a[0] + ny * a[1]] as const;
+    });
+    let best = -Infinity;
+    for (let i = 0; i < edges.length; i++) for (let j = i + 1; j < edges.length; j++) for (let k = j + 1; k < edges.length; k++) {
+      const [a1, b1, c1] = edges[i]!, [a2, b2, c2] = edges[j]!, [a3, b3, c3] = edges[k]!;
+      // Solve nᵢ·x + r = bᵢ for the three edges (Cramer's rule).
+      const det = a1 * (b2 - b3) - b1 * (a2 - a3) + (a2 * b3 - a3 * b2);
+      if (Math.abs(det) < 1e-12) continue;
+      const x = (c1 * (b2 - b3) - b1 * (c2 - c3) + (c2 * b3 - c3 * b2)) / det;
+      const y = (a1 * (c2 - c3) - c1 * (a2 - a3) + (a2 * c3 - a3 * c2)) / det;
+      const r = c1 - a1 * x - b1 * y;
+      if (edges.every(([a, b, c]) => c - a * x - b * y >= r - 1e-9)) best = Math.max(best, r);
+    }
+    return best;
+  };
+  const convexPolygon = fc.array(fc.tuple(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), fc.double({ min: 0.5, max: 5, noNaN: true })), { minLength: 3, maxLength: 12 })
+    .map((a) => getConvexHull(a.map(([t, r]) => [r * Math.cos(t), r * Math.sin(t)] as [number, number])));
+
+  it('matches the exact Chebyshev radius on random convex polygons (REFERENCES.md §3.3; fast-check, seed 11)', () => {
+    fc.assert(fc.property(convexPolygon, (pts) => {
+      if (pts.length < 3 || getPolylineHull({ points: pts, deviationMm: 0, pieces: [] }).areaMm2 < 0.5) return;
+      const lic = getLargestInscribedCircle(pts);
+      const exact = chebyshevRadius(pts);
+      expect(lic.capped).toBe(false);
+      expect(Math.abs(lic.radiusMm - exact)).toBeLessThanOrEqual(lic.errorBoundMm + 1e-9);
+    }), { seed: 11, numRuns: 150 });
+  });
+
+  // Point sets: the minimum-zone centre is a circumcentre of three points or the meeting point of
+  // two bisectors (REFERENCES.md §3.3), so trying every candidate inside the enclosing disc is exact.
+  const bruteMinimumZone = (pts: readonly (readonly [number, number])[]) => {
+    const mec = getSmallestEnclosingCircle(pts);
+    const width = (x: number, y: number) => {
+      const d = pts.map((p) => Math.hypot(p[0] - x, p[1] - y));
+      return Math.max(...d) - Math.min(...d);
+    };
+    const bisector = (p: readonly number[], q: readonly number[]) =>
+      [q[0]! - p[0]!, q[1]! - p[1]!, (q[0]! ** 2 + q[1]! ** 2 - p[0]! ** 2 - p[1]! ** 2) / 2] as const;
+    const lines: (readonly [number, number, number])[] = [];
+    for (let i = 0; i < pts.length; i++) for (let j = i + 1; j < pts.length; j++) lines.push(bisector(pts[i]!, pts[j]!));
+    let best = Infinity;
+    for (let i = 0; i < lines.length; i++) for (let j = i + 1; j < lines.length; j++) {
+      const [a1, b1, c1] = lines[i]!, [a2, b2, c2] = lines[j]!;
+      const det = a1 * b2 - a2 * b1;
+      if (Math.abs(det) < 1e-12) continue;
+      const x = (c1 * b2 - c2 * b1) / det, y = (a1 * c2 - a2 * c1) / det;
+      if (Math.hypot(x - mec.x, y - mec.y) <= mec.r) best = Math.min(best, width(x, y));
+    }
+    return best;
+  };
+
+  it('matches the exact minimum zone of random point sets (REFERENCES.md §3.3; fast-check, seed 13)', () => {
+    // Points near a unit circle at distinct twelfths of a turn, so no two coincide.
+    const pointSet = fc.uniqueArray(fc.tuple(fc.integer({ min: 0, max: 11 }), fc.double({ min: 0.8, max: 1.2, noNaN: true })), { minLength: 4, maxLength: 7, selector: (p) => p[0] })
+      .map((a) => a.map(([k, r]) => [r * Math.cos((k * Math.PI) / 6), r * Math.sin((k * Math.PI) / 6)] as [number, number]));
+    fc.assert(fc.property(pointSet, (pts) => {
+      const mz = getMinimumZone(pts, { asPoints: true });
+      if (mz.onSearchRim) return;
+      const exact = bruteMinimumZone(pts);
+      expect(Math.abs(mz.widthMm - exact)).toBeLessThanOrEqual(mz.errorBoundMm + 1e-9);
+    }), { seed: 13, numRuns: 150 });
+  });
+
+  // Soundness of the bounds where no closed form is at hand: no point of a fine grid may beat the
+  // stated bound (inradius + bound ≥ grid maximum, zone − bound ≤ grid minimum).
+  const gridCheck = (c: Contour) => {
+    const r = figuresOf(c);
+    const m = measureContour(c, 'up');
+    const [x0, y0, x1, y1] = m.bboxMm;
+    const size = Math.hypot(x1 - x0, y1 - y0), slack = 1e-6 * size;
+    const poly = getContourPolyline(c, slack).points;
+    const n = poly.length;
+    const dist = (x: number, y: number) => {
+      let d = Infinity, inside = false;
+      for (let i = 0; i < n; i++) {
+        const a = poly[i]!, b = poly[(i + 1) % n]!;
+        const dx = b[0] - a[0], dy = b[1] - a[1], l2 = dx * dx + dy * dy;
+        const t = l2 === 0 ? 0 : Math.max(0, Math.min(1, ((x - a[0]) * dx + (y - a[1]) * dy) / l2));
+        d = Math.min(d, Math.hypot(x - a[0] - t * dx, y - a[1] - t * dy));
+        if ((a[1] > y) !== (b[1] > y) && x < a[0] + ((y - a[1]) * dx) / dy) inside = !inside;
+      }
+      return { d, inside };
+    };
+    const far = (x: number, y: number) => Math.max(...poly.map((p) => Math.hypot(p[0] - x, p[1] - y)));
+    const lic = r.inradius.value!, mz = r.minZone.value;
+    const steps = 16;
+    for (let i = 0; i <= steps; i++) for (let j = 0; j <= steps; j++) {
+      const x = x0 + ((x1 - x0) * i) / steps, y = y0 + ((y1 - y0) * j) / steps;
+      const { d, inside } = dist(x, y);
+      if (inside) expect(d).toBeLessThanOrEqual(lic.valueMm + lic.errorBoundMm + slack);
+      const mec = r.circumradius.value!;
+      if (mz && Math.hypot(x - mec.centreXMm, y - mec.centreYMm) <= mec.valueMm) expect(far(x, y) - d).toBeGreaterThanOrEqual(mz.valueMm - mz.errorBoundMm - 2 * slack);
+    }
+  };
+
+  it('states sound bounds on random star polygons and crescents of two arcs (fast-check, seed 17)', () => {
+    const starPolygon = fc.array(fc.tuple(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), fc.double({ min: 0.5, max: 3, noNaN: true })), { minLength: 3, maxLength: 10 })
+      .map((a) => [...a].sort((p, q) => p[0] - q[0]).map(([t, r]) => [r * Math.cos(t), r * Math.sin(t)] as [number, number]));
+    fc.assert(fc.property(starPolygon, (pts) => {
+      const c = polygon(pts);
+      if (findSelfIntersections(c).intersections.some((x) => x.kind === 'crossing') || measureContour(c, 'up').areaMm2.value === 0) return;
+      gridCheck(c);
+    }), { seed: 17, numRuns: 25 });
+    // A crescent: two circular arcs through (±8, 0), both bulging the same way (the lamp panel's moon).
+    fc.assert(fc.property(fc.double({ min: 8.5, max: 12, noNaN: true }), fc.double({ min: 8.5, max: 12, noNaN: true }), (r1, r2) => {
+      if (Math.abs(r1 - r2) < 0.2) return;
+      const [big, small] = r1 > r2 ? [r1, r2] : [r2, r1];
+      gridCheck(contoursFromPathData(`M -8 0 A ${small} ${small} 0 1 0 8 0 A ${big} ${big} 0 1 1 -8 0 Z`)[0]!);
+    }), { seed: 17, numRuns: 10 });
   });
 });

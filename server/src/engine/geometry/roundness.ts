@@ -4,17 +4,26 @@
  * - inradius ρ: largest circle inside the contour, by best-first branch and bound over square cells
  *   of the signed distance to the outline (1-Lipschitz, so a cell of half-diagonal h around a centre
  *   with distance d holds nothing above d + h) [common practice, no source; the same bound drives the
- *   "pole of inaccessibility" search];
+ *   "pole of inaccessibility" search], tightened to the maximum over the cell of the least of linear
+ *   upper bounds of the nearest pieces' distances (a 2D linear programme, solved exactly by its
+ *   vertices), which is exact where the distance is linear, so plateaus such as a rectangle's close
+ *   at once;
  * - minimum-zone roundness t_MZ (ISO 12181, §3.1): the least radial separation of two concentric
  *   circles enclosing the outline. F(c) = max|c − p| − min dist(c, outline) is 2-Lipschitz in c, so
- *   branch and bound over cells gives the global minimum over the search region to a tolerance.
- *   The region is the smallest enclosing disc, as §3.4 asks ("elongated shapes have no finite MZ
- *   centre"); the result says when the best centre lies on the region's rim.
+ *   branch and bound over cells gives the global minimum over the search region to a tolerance;
+ *   cells are also bounded by pairing those linear bounds with tangent bounds of the farthest
+ *   distance, with the concave curvature of both kept (a concave quadratic, maximised exactly), which
+ *   closes ridges such as a crescent's axis. The search stops at the tolerance; MAX_ROUNDNESS_CELLS
+ *   is a safety cap whose gap would be the stated bound. The region is the smallest enclosing disc,
+ *   as §3.4 asks ("elongated shapes have no finite MZ centre"); the result says when the best centre
+ *   lies on the region's rim.
  * - Bonnesen: R − ρ ≤ √D/π (§1.2–1.3); Banchoff–Pohl: L² ≥ 4π∬w² dA (§1.4), with ∬w² dA computed
  *   exactly on the polyline by horizontal slabs (between consecutive vertex/crossing heights every
  *   crossing x is linear in y, so the slab's ∫w² dx is linear and its midpoint value is exact).
- * Curved outlines are flattened within δ (hull.ts); max and min distances then move by ≤ δ, so R and
- * ρ carry ±δ and t_MZ ±2δ on top of the search tolerance; both are in the stated error bound.
+ * Curved outlines are flattened within δ (hull.ts), once per contour for the hull, R and the searches;
+ * the searches keep arcs of circles exact and use the chords of everything else. Max and min
+ * distances then move by ≤ δ (the searches' δ counts only flattened pieces), so R and ρ carry ±δ and
+ * t_MZ ±2δ on top of the search tolerance; both are in the stated error bound.
  */
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
@@ -105,13 +114,13 @@ interface SearchPiece {
 }
 
 /** The outline as search pieces, and the largest distance between it and the contour (δ). */
-export interface SearchOutline {
+interface SearchOutline {
   readonly pieces: readonly SearchPiece[];
   readonly deviationMm: number;
 }
 
 /** A closed polyline (or, with `asPoints`, a point set) as search pieces. */
-export function outlineFromPoints(points: readonly Pt[], asPoints = false): SearchOutline {
+function outlineFromPoints(points: readonly Pt[], asPoints = false): SearchOutline {
   const n = points.length;
   return {
     pieces: points.map((a, i) => {
@@ -127,7 +136,7 @@ export function outlineFromPoints(points: readonly Pt[], asPoints = false): Sear
  * everything else is its chords. δ is the largest deviation of a flattened piece or of an arc from
  * its circle, so distances to the outline are within ±δ of distances to the contour.
  */
-export function outlineFromPolyline(poly: Polyline): SearchOutline {
+function outlineFromPolyline(poly: Polyline): SearchOutline {
   const pts = poly.points, n = pts.length;
   const pieces: SearchPiece[] = [];
   let deviation = 0;

@@ -44,28 +44,18 @@ export interface Pieces {
   readonly minKeptExtent: number;
 }
 
+/** The piece buffer, sized once: buildPieces counts the pieces before it writes them. */
 class PieceWriter {
-  buf: Float64Array;
-  contourOf: Int32Array;
+  readonly buf: Float64Array;
+  readonly contourOf: Int32Array;
   count = 0;
 
-  /** `capacity`: expected piece count (one per segment is exact for lines and arcs' common case). */
   constructor(capacity: number) {
-    const n = Math.max(64, capacity);
-    this.buf = new Float64Array(STRIDE * n);
-    this.contourOf = new Int32Array(n);
+    this.buf = new Float64Array(STRIDE * capacity);
+    this.contourOf = new Int32Array(capacity);
   }
 
   next(contour: number): number {
-    if ((this.count + 1) * STRIDE > this.buf.length) {
-      const n = Math.ceil(this.contourOf.length * 1.5);
-      const b = new Float64Array(STRIDE * n);
-      b.set(this.buf);
-      this.buf = b;
-      const c = new Int32Array(n);
-      c.set(this.contourOf);
-      this.contourOf = c;
-    }
     this.contourOf[this.count] = contour;
     return this.count++ * STRIDE;
   }
@@ -80,14 +70,20 @@ function addDerivativeRoots(ts: number[], c0: number, c1: number, c2: number): v
   ts.length = n;
 }
 
-/** Sorts the split parameters and drops those within 1e-12 of the one before (in place). */
-function splitPoints(ts: number[]): number[] {
-  if (ts.length < 2) return ts;
-  ts.sort((a, b) => a - b);
-  let n = 1;
-  for (let k = 1; k < ts.length; k++) if (ts[k]! - ts[n - 1]! > 1e-12) ts[n++] = ts[k]!;
+/**
+ * Sorts ts[from..] (insertion sort: a handful of values) and drops those within 1e-12 of the one
+ * kept before them.
+ */
+function sortSplits(ts: number[], from: number): void {
+  for (let k = from + 1; k < ts.length; k++) {
+    const t = ts[k]!;
+    let m = k;
+    for (; m > from && ts[m - 1]! > t; m--) ts[m] = ts[m - 1]!;
+    ts[m] = t;
+  }
+  let n = Math.min(from + 1, ts.length);
+  for (let k = from + 1; k < ts.length; k++) if (ts[k]! - ts[n - 1]! > 1e-12) ts[n++] = ts[k]!;
   ts.length = n;
-  return ts;
 }
 
 /** Splits a cubic (8 numbers) at t into two; returns [left, right]. de Casteljau. */
@@ -133,32 +129,39 @@ function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, 
   for (let k = 2; k < n - 2; k++) b[o + 6 + k] = pts[k]!;
 }
 
+/** Appends to `cuts` the parameters in (0, 1) where a Bézier stops being monotone, sorted. */
+function addBezierCuts(cuts: number[], s: Segment & { kind: 'quad' | 'cubic' }): void {
+  const from = cuts.length;
+  if (s.kind === 'cubic') {
+    // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t, per coordinate:
+    let a = s.x1 - s.x0, b = s.x2 - s.x1, c = s.x3 - s.x2;
+    addDerivativeRoots(cuts, a, 2 * (b - a), a - 2 * b + c);
+    a = s.y1 - s.y0; b = s.y2 - s.y1; c = s.y3 - s.y2;
+    addDerivativeRoots(cuts, a, 2 * (b - a), a - 2 * b + c);
+  } else {
+    addDerivativeRoots(cuts, s.x1 - s.x0, s.x0 - 2 * s.x1 + s.x2, 0);
+    addDerivativeRoots(cuts, s.y1 - s.y0, s.y0 - 2 * s.y1 + s.y2, 0);
+  }
+  sortSplits(cuts, from);
+}
+
 /** Control points of the Bézier being cut (its remaining right part), reused across segments. */
 const CUBIC_REST = new Float64Array(8);
 const QUAD_REST = new Float64Array(6);
-/** Split parameters of the segment being cut, reused across segments. */
-const SPLITS: number[] = [];
 
-function addBezier(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'quad' | 'cubic' }): void {
+/** Writes the pieces of a Bézier cut at cuts[from..to) (from addBezierCuts). */
+function addBezier(
+  w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'quad' | 'cubic' },
+  cuts: readonly number[], from: number, to: number,
+): void {
   const cubic = s.kind === 'cubic';
-  const ts = SPLITS;
-  ts.length = 0;
-  if (cubic) {
-    // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t, per coordinate:
-    let a = s.x1 - s.x0, b = s.x2 - s.x1, c = s.x3 - s.x2;
-    addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
-    a = s.y1 - s.y0; b = s.y2 - s.y1; c = s.y3 - s.y2;
-    addDerivativeRoots(ts, a, 2 * (b - a), a - 2 * b + c);
-  } else {
-    addDerivativeRoots(ts, s.x1 - s.x0, s.x0 - 2 * s.x1 + s.x2, 0);
-    addDerivativeRoots(ts, s.y1 - s.y0, s.y0 - 2 * s.y1 + s.y2, 0);
-  }
   const kind = cubic ? KIND_CUBIC : KIND_QUAD;
   const r = cubic ? CUBIC_REST : QUAD_REST;
   r[0] = s.x0; r[1] = s.y0; r[2] = s.x1; r[3] = s.y1; r[4] = s.x2; r[5] = s.y2;
   if (s.kind === 'cubic') { r[6] = s.x3; r[7] = s.y3; }
   let t0 = 0;
-  for (const t of splitPoints(ts)) {
+  for (let k = from; k < to; k++) {
+    const t = cuts[k]!;
     const local = (t - t0) / (1 - t0);
     const [left, right] = cubic ? splitCubic(r, local) : splitQuad(r, local);
     pushBezier(w, contour, seg, kind, left, t0, t);
@@ -168,24 +171,30 @@ function addBezier(w: PieceWriter, contour: number, seg: number, s: Segment & { 
   pushBezier(w, contour, seg, kind, r, t0, 1);
 }
 
-function addArc(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'arc' }): void {
+/** Appends to `cuts` the sweep fractions in (0, 1) where an arc stops being monotone, sorted. */
+function addArcCuts(cuts: number[], s: Segment & { kind: 'arc' }): void {
   const { ux, uy, vx, vy, theta0, sweep } = s;
+  const from = cuts.length;
   // x′(θ) = −ux sin θ + vx cos θ = 0 at θ = atan2(vx, ux) + kπ; likewise for y.
-  const ts: number[] = [];
   for (const base of [Math.atan2(vx, ux), Math.atan2(vy, uy)]) {
     for (let k = -4; k <= 4; k++) {
       const f = (base + k * Math.PI - theta0) / sweep;
-      if (f > 1e-12 && f < 1 - 1e-12) ts.push(f);
+      if (f > 1e-12 && f < 1 - 1e-12) cuts.push(f);
     }
   }
+  sortSplits(cuts, from);
+}
+
+/** Writes the pieces of an arc cut at cuts[from..to) (from addArcCuts). */
+function addArc(w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'arc' }, cuts: readonly number[], from: number, to: number): void {
+  const { ux, uy, vx, vy, theta0, sweep } = s;
   let prevF = 0;
   let px = s.x0, py = s.y0;
-  const cuts = splitPoints(ts);
-  for (let i = 0; i <= cuts.length; i++) {
-    const f = i < cuts.length ? cuts[i]! : 1;
+  for (let k = from; k <= to; k++) {
+    const f = k < to ? cuts[k]! : 1;
     const th = theta0 + f * sweep;
-    const ex = i < cuts.length ? s.cx + ux * Math.cos(th) + vx * Math.sin(th) : s.x1;
-    const ey = i < cuts.length ? s.cy + uy * Math.cos(th) + vy * Math.sin(th) : s.y1;
+    const ex = k < to ? s.cx + ux * Math.cos(th) + vx * Math.sin(th) : s.x1;
+    const ey = k < to ? s.cy + uy * Math.cos(th) + vy * Math.sin(th) : s.y1;
     const o = w.next(contour);
     const b = w.buf;
     b[o] = KIND_ARC;
@@ -238,11 +247,26 @@ function controlExtent(s: Segment): number {
  * contour whose last end point is not its start gets an implicit closing line (segment −1).
  */
 export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
-  let expected = 0;
-  for (const c of contours) expected += c.segments.length + 1;
-  const w = new PieceWriter(expected);
+  // First pass: the cut parameters of every kept curve (in order, `cutEnds` marks where each
+  // curve's run ends), so the buffer is allocated once at its final size (one closing line per
+  // contour at most).
+  const cuts: number[] = [];
+  const cutEnds: number[] = [];
+  let capacity = contours.length;
+  for (const c of contours) {
+    for (const s of c.segments) {
+      if (controlExtent(s) <= pointTol) continue;
+      capacity++;
+      if (s.kind === 'quad' || s.kind === 'cubic') addBezierCuts(cuts, s);
+      else if (s.kind === 'arc' && Math.abs(s.ux * s.vy - s.uy * s.vx) !== 0) addArcCuts(cuts, s);
+      else continue;
+      cutEnds.push(cuts.length);
+    }
+  }
+  const w = new PieceWriter(capacity + cuts.length);
   const chains: PieceChain[] = [];
   let minKept = Infinity;
+  let curve = 0;
   for (let ci = 0; ci < contours.length; ci++) {
     const c = contours[ci]!;
     const first = w.count;
@@ -252,12 +276,13 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
       const extent = controlExtent(s);
       if (extent <= pointTol) continue;
       minKept = Math.min(minKept, extent);
+      const from = curve > 0 ? cutEnds[curve - 1]! : 0;
       switch (s.kind) {
         case 'line': addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1); break;
-        case 'quad': case 'cubic': addBezier(w, ci, si, s); break;
+        case 'quad': case 'cubic': addBezier(w, ci, si, s, cuts, from, cutEnds[curve++]!); break;
         case 'arc':
           if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1);
-          else addArc(w, ci, si, s);
+          else addArc(w, ci, si, s, cuts, from, cutEnds[curve++]!);
           break;
       }
       if (s.kind === 'cubic') { lastX = s.x3; lastY = s.y3; }

@@ -176,7 +176,7 @@ function inSector(p: SearchPiece, dx: number, dy: number, ax = p.ax, ay = p.ay, 
 }
 
 /** Whether the direction lies in the piece's span (its sector joined with the next one's). */
-const inSpan = (p: SearchPiece, dx: number, dy: number) => inSector(p, dx, dy, ...p.circle!.span);
+const inSpan = (p: SearchPiece, dx: number, dy: number) => { const s = p.circle!.span; return inSector(p, dx, dy, s[0], s[1], s[2], s[3]); };
 
 function pieceBox(p: SearchPiece): [number, number, number, number] {
   let minX = Math.min(p.ax, p.bx), minY = Math.min(p.ay, p.by), maxX = Math.max(p.ax, p.bx), maxY = Math.max(p.ay, p.by);
@@ -281,7 +281,7 @@ function maxConcaveQuadratic(k: number, gx: number, gy: number, m11: number, m12
   const q = (ex: number, ey: number) => k + gx * ex + gy * ey - (m11 * ex * ex + 2 * m12 * ex * ey + m22 * ey * ey);
   const vertex = (lin: number, quad: number) => (quad > 0 ? Math.min(h, Math.max(-h, lin / (2 * quad))) : lin >= 0 ? h : -h);
   let best = -Infinity;
-  for (const side of [-h, h]) {
+  for (let side = -h, k2 = 0; k2 < 2; k2++, side = h) {
     best = Math.max(best, q(side, vertex(gy - 2 * m12 * side, m22)), q(vertex(gx - 2 * m12 * side, m11), side));
   }
   const det = m11 * m22 - m12 * m12;
@@ -518,9 +518,9 @@ function createOutlineDistance(outline: SearchOutline) {
       let upper = f + 2 * h * Math.SQRT2;
       const gs = nearBounds(x, y, h);
       const pairs: [number, number, number][] = [];
-      far.forEach(([D0, qx0, qy0], k) => {
-        let D = D0, qx = qx0, qy = qy0;
-        if (D === 0) return;
+      for (let k = 0; k < far.length; k++) {
+        let [D, qx, qy] = far[k]!;
+        if (D === 0) continue;
         // farthest(p) ≥ |p − Q| + r for Q = C of a circle piece whose farthest direction from every
         // point of the cell lies in its span, else ≥ |p − Q| (r = 0) for the farthest point Q found.
         const outer = pieces[farPiece[k]!]!, oc = outer.circle;
@@ -539,7 +539,7 @@ function createOutlineDistance(outline: SearchOutline) {
           upper = Math.min(upper, qp + slack);
         }
         for (const i of near) { const g = circleGapUpperBound(pieces[i]!, outer, x, y, h); if (g) pairs.push(g); }
-      });
+      }
       if (pairs.length > 0) upper = Math.min(upper, maxOfMinLinear(pairs, x, y, h) + slack);
       return { f, upper };
     },

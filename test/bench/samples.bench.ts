@@ -1,0 +1,19 @@
+/**
+ * `analyze()` of each file in samples/, warm (run: `npx vitest bench --run test/bench/samples.bench.ts`).
+ * The editor re-analyses a file on every edit, so these small ordinary files should each take well
+ * under 50 ms. The machine is noisy: read the medians as orders of magnitude between runs.
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { bench, describe } from 'vitest';
+import { analyze } from '../../server/src/engine/index';
+
+const dir = join(__dirname, '../../samples');
+
+describe('analyze() per sample file', () => {
+  for (const name of readdirSync(dir).filter((f) => /\.(svg|dxf)$/.test(f)).sort()) {
+    const text = readFileSync(join(dir, name), 'utf8');
+    const format = name.endsWith('.svg') ? 'svg' : 'dxf';
+    bench(name, () => { analyze(text, format); }, { warmupIterations: 3, iterations: 15, time: 0 });
+  }
+});

@@ -374,3 +374,13 @@ describe('the installed command', () => {
     ]);
   });
 });
+
+describe('the README', () => {
+  it('shows what the CLI really prints for the draft lamp panel', async () => {
+    const readme = await readFile(join(root, 'README.md'), 'utf8');
+    const block = readme.slice(readme.indexOf('samples/lamp-panel-draft.svg  (SVG'), readme.indexOf('…\n', readme.indexOf('samples/lamp-panel-draft.svg  (SVG')));
+    const r = await cli('check', 'samples/lamp-panel-draft.svg');
+    expect(block.length).toBeGreaterThan(200);
+    expect(r.stdout.replaceAll(samples, 'samples')).toContain(block);
+  });
+});

@@ -29,7 +29,7 @@ describe('DXF', () => {
     assert.equal(nearClosed!.severity, vscode.DiagnosticSeverity.Warning);
     assert.equal(document.getText(nearClosed!.range), SHORT_LINE);
     const [notAnalysed] = withCode(diagnostics, 'not-analysed');
-    assert.match(notAnalysed!.message, /\b1 TEXT\b/);
+    assert.match(notAnalysed!.message, /\bTEXT \(1 entity;/);
     assert.equal(notAnalysed!.severity, vscode.DiagnosticSeverity.Information);
     assert.deepEqual(diagnostics.filter((d) => d.source === 'loopwise').map(getCode).sort(), ['near-closed', 'not-analysed']);
   });

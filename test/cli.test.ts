@@ -384,3 +384,15 @@ describe('the README', () => {
     expect(r.stdout.replaceAll(samples, 'samples')).toContain(block);
   });
 });
+
+describe('the contour table', () => {
+  it('places each use instance at its own use tag, not at the shared shape in defs', async () => {
+    const r = await cli('check', join(samples, 'gasket-plate.svg'));
+    const text = await readFile(join(samples, 'gasket-plate.svg'), 'utf8');
+    // Line numbers of the six <use> tags, counted independently of the CLI.
+    const useLines = text.split('\n').flatMap((l, i) => (l.includes('<use ') ? [`${i + 1}:5`] : []));
+    expect(useLines).toHaveLength(6);
+    const holeRows = r.stdout.split('\n').filter((l) => /^\s+\d+\s+circle#bolt-hole\s/.test(l));
+    expect(holeRows.map((l) => l.trim().split(/\s+/)[2])).toEqual(useLines);
+  });
+});

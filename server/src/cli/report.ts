@@ -3,7 +3,7 @@
  * and as the machine-readable JSON report — a public contract documented in the README
  * ("The JSON report"). Pure: strings out, no I/O.
  */
-import { formatNumber } from '../engine/index';
+import { formatNumber, getPlacement } from '../engine/index';
 import type { AnalysisResult, ContourResult, FileSummary, Finding, Measured, MeasuredCircle, Severity } from '../engine/index';
 import { createLineIndex, type LineIndex } from '../engine/lineIndex';
 
@@ -174,7 +174,7 @@ export function renderText(files: readonly FileReport[]): string {
     } else {
       const rows: string[][] = [['#', 'element', 'at', 'closed', 'gap mm', 'length mm', 'perimeter mm', 'area mm²', 'Q', 'problems']];
       for (const { contour, metrics } of result.contours) {
-        const at = lines.at(contour.span.start);
+        const at = lines.at(getPlacement(contour).start);
         rows.push([
           String(contour.index),
           contour.id ? `${contour.element}#${contour.id}` : contour.element,

@@ -4,7 +4,7 @@
  * one packed array of segment spans, so they cross from an analysis worker to the protocol thread
  * in milliseconds instead of seconds.
  */
-import type { AnalysisResult, Contour, ContourResult } from './types';
+import type { AnalysisResult, Contour, ContourResult, SourceSpan } from './types';
 
 /** A contour without segments; `segmentSpans` holds each segment's source span as [start, end, start, end, …]. */
 export interface ContourOutline extends Omit<Contour, 'segments'> {
@@ -32,6 +32,15 @@ export function toFigures(result: AnalysisResult): AnalysisFigures {
       return { ...rest, contour: { ...outline, segmentSpans } };
     }),
   };
+}
+
+/**
+ * Where a contour stands in the document: its own text, or — for an instance whose text is elsewhere
+ * (an SVG `use` of a shape in `defs`) — the element that places it.
+ */
+export function getPlacement(contour: { readonly span: SourceSpan; readonly elementSpan: SourceSpan }): SourceSpan {
+  const { span, elementSpan } = contour;
+  return span.start >= elementSpan.start && span.start <= elementSpan.end ? span : elementSpan;
 }
 
 /**

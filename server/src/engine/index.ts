@@ -23,7 +23,7 @@ import type {
 export type * from './types';
 export { checks, getCheck } from './checks/index';
 export { formatNumber } from './format';
-export { getContourAt, toFigures } from './figures';
+export { getContourAt, getPlacement, toFigures } from './figures';
 export type { AnalysisFigures, ContourFigures, ContourOutline } from './figures';
 
 export const DEFAULT_OPTIONS: AnalysisOptions = {

@@ -30,8 +30,8 @@ function bigSvg(n: number): string {
 const SMALL = '<svg xmlns="http://www.w3.org/2000/svg" width="10mm" height="10mm" viewBox="0 0 10 10"><path d="M0 0H5V5H0Z"/></svg>';
 
 let analysers: WorkerAnalyser[] = [];
-function createWorkerAnalyser(workers = 1, maxHeapMb = 512): WorkerAnalyser {
-  const a = new WorkerAnalyser({ workerPath, workers, maxHeapMb });
+function createWorkerAnalyser(workers = 1, maxHeapMb = 512, cancelGraceMs = 60_000, onTerminated?: () => void): WorkerAnalyser {
+  const a = new WorkerAnalyser({ workerPath, workers, maxHeapMb, cancelGraceMs, ...(onTerminated ? { onTerminated } : {}) });
   analysers.push(a);
   return a;
 }
@@ -62,6 +62,19 @@ describe('WorkerAnalyser', () => {
     expect(await run).toBeUndefined();
     const next = await analyser.analyse(SMALL, 'svg', jobOptions, never);
     // 5 × 5 mm square: area a² = 25 mm².
+    expect(next?.contours[0]?.metrics.areaMm2).toEqual({ value: 25 });
+  });
+
+  it('terminates a worker whose outdated job runs on past the grace period, and runs the next job on a fresh one', async () => {
+    let terminated = 0;
+    const analyser = createWorkerAnalyser(1, 512, 0, () => terminated++);
+    let outdated = false;
+    // Reading 400 000 segments is one stage of well over 25 ms: the flag alone cannot stop it in time.
+    const run = analyser.analyse(bigSvg(400_000), 'svg', jobOptions, () => outdated);
+    setTimeout(() => (outdated = true), 10);
+    expect(await run).toBeUndefined();
+    expect(terminated).toBe(1);
+    const next = await analyser.analyse(SMALL, 'svg', jobOptions, never);
     expect(next?.contours[0]?.metrics.areaMm2).toEqual({ value: 25 });
   });
 

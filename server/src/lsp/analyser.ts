@@ -5,6 +5,8 @@
  *
  * Cancellation: the caller's `isOutdated` is polled on the protocol thread while a job runs; when it
  * turns true a shared flag is raised, and the engine in the worker sees it between its stages and stops.
+ * A worker still busy with an outdated job after a grace period (a long reading stage of a huge file)
+ * is terminated and replaced, so stale work never holds a core the current version needs.
  * A worker that dies (out of memory on a hostile file, a crash) fails only its own job and is replaced.
  */
 import { Worker } from 'node:worker_threads';
@@ -75,6 +77,10 @@ export interface WorkerAnalyserOptions {
   readonly workers: number;
   /** Heap limit of one worker in MB: a file that needs more fails alone instead of taking the server down. */
   readonly maxHeapMb: number;
+  /** How long an outdated job may run on after its flag was raised before its worker is terminated. */
+  readonly cancelGraceMs: number;
+  /** Called when a worker was terminated because its outdated job did not stop in time. */
+  readonly onTerminated?: () => void;
 }
 
 export class WorkerAnalyser implements Analyser {
@@ -116,8 +122,15 @@ export class WorkerAnalyser implements Analyser {
       if (!slot) return;
       this.waiting.shift();
       slot.job = job;
+      let flaggedAt: number | undefined;
       slot.poll = setInterval(() => {
-        if (job.isOutdated()) Atomics.store(job.request.cancel, 0, 1);
+        if (flaggedAt === undefined) {
+          if (!job.isOutdated()) return;
+          Atomics.store(job.request.cancel, 0, 1);
+          flaggedAt = performance.now();
+        } else if (performance.now() - flaggedAt >= this.options.cancelGraceMs) {
+          this.terminate(slot);
+        }
       }, CANCEL_POLL_MS);
       slot.worker.postMessage(job.request);
     }
@@ -147,6 +160,17 @@ export class WorkerAnalyser implements Analyser {
     worker.on('exit', (code) => onDeath(new Error(`The analysis worker stopped (exit code ${code}); the file may be too large to analyse.`)));
     this.slots.push(slot);
     return slot;
+  }
+
+  /** Stops a worker whose outdated job runs on: the job answers undefined, and the next job gets a fresh worker. */
+  private terminate(slot: Slot): void {
+    const index = this.slots.indexOf(slot);
+    if (index < 0) return;
+    this.slots.splice(index, 1);
+    this.finish(slot)?.resolve(undefined);
+    void slot.worker.terminate();
+    this.options.onTerminated?.();
+    this.dispatch();
   }
 
   /** Detaches the slot's job and stops polling it; returns the job. */

@@ -23,5 +23,7 @@ const analyser = new WorkerAnalyser({
   workerPath: join(__dirname, 'analysisWorker.js'),
   workers: Math.min(2, availableParallelism()),
   maxHeapMb: 4096,
+  cancelGraceMs: 500,
+  onTerminated: () => connection.console.log('Loopwise: stopped an outdated analysis that ran on past its cancellation.'),
 });
 startServer(connection, analyser);

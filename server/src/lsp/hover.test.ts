@@ -99,6 +99,30 @@ describe('getContourCard', () => {
     expect(row(getContourCard(otherWay, makeResult([rect, otherWay])), 'Nesting')).toBe('hole in contour #0, turning the other way (ccw in cw)');
   });
 
+  it('reads floating-point residue as 0: a circle of exact arcs has deficit 0 and R − ρ 0 within R\'s bound', () => {
+    // A circle r = 2.2 of exact arcs (L = 2π·2.2, REFERENCES.md §2.1): the deficit 4π²r² − 4π·πr² is 0 up to
+    // rounding (here 2.84e-14 mm², below 16 ulp of L² ≈ 6.8e-13); ρ = R = 2.2 up to 8.88e-16 mm.
+    const L = 2 * Math.PI * 2.2;
+    const circle = {
+      ...rect,
+      metrics: { ...rect.metrics, lengthMm: L, perimeterMm: { value: L }, deficitMm2: { value: 2.84e-14 } },
+      geometry: {
+        ...rect.geometry,
+        roundness: {
+          ...rect.geometry.roundness,
+          inradius: { value: { valueMm: 2.2, centreXMm: 15, centreYMm: 15, errorBoundMm: 8.88e-16 } },
+          circumradius: { value: { valueMm: 2.2, centreXMm: 15, centreYMm: 15, errorBoundMm: 6.15e-5 } },
+          radiusGapMm: { value: 8.88e-16 },
+          bonnesenBoundMm: { value: 5.37e-8 },
+        },
+      },
+    };
+    const card = getContourCard(circle, makeResult([circle]));
+    expect(row(card, 'Deficit L² − 4πA')).toBe('0 mm² (to rounding)');
+    expect(row(card, 'Inradius ρ')).toBe('2.2 mm, centre (15, 15)');
+    expect(row(card, 'R − ρ')).toBe('0 ± 0.0000615 mm measured; Bonnesen bound √D/π = 5.37e-8 mm');
+  });
+
   it('shows R − ρ with the error bounds of both radii, so a flattened circle\'s residue is not read as a breach of Bonnesen', () => {
     // A circle r = 20 flattened within δ = 5.63e-5: ρ = 20 − δ ± δ, R = 20 ± δ (hull.ts), Bonnesen bound 0 (§1.3: D = 0).
     const delta = 5.63e-5;

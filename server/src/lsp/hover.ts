@@ -37,12 +37,38 @@ function measured(m: Measured, unit: string): string {
   return unit ? `${formatNumber(m.value)} ${unit}` : formatNumber(m.value);
 }
 
+/**
+ * Lengths below a nanometre are floating-point residue, not geometry (no cutting machine holds
+ * 1e-9 mm): such a value reads as 0 and such an error bound is not shown.
+ */
+const RESIDUE_MM = 1e-9;
+
+/** A length in mm for the card: residue reads as 0. */
+function length(v: number): string {
+  return Math.abs(v) < RESIDUE_MM ? '0' : formatNumber(v);
+}
+
+/** " ± b" when the bound reaches the shown digits and is more than residue, else nothing. */
+function plusMinus(errorBoundMm: number): string {
+  return errorBoundMm < RESIDUE_MM || formatNumber(errorBoundMm) === '0' ? '' : ` ± ${formatNumber(errorBoundMm)}`;
+}
+
 /** A radius or zone with its centre; the error bound is shown when it reaches the shown digits. */
 function circle(m: MeasuredCircle): string {
   if (m.value === null) return undefinedBecause(m.reason);
   const { valueMm, centreXMm, centreYMm, errorBoundMm } = m.value;
-  const bound = formatNumber(errorBoundMm) === '0' ? '' : ` ± ${formatNumber(errorBoundMm)}`;
-  return `${formatNumber(valueMm)}${bound} mm, centre (${formatNumber(centreXMm)}, ${formatNumber(centreYMm)})`;
+  return `${length(valueMm)}${plusMinus(errorBoundMm)} mm, centre (${length(centreXMm)}, ${length(centreYMm)})`;
+}
+
+/**
+ * The deficit L² − 4πA: within the rounding of its two terms (16 ulp of L²) it is 0, as for a circle
+ * drawn with exact arcs, rather than a stray 1e-14.
+ */
+function deficit(metrics: ContourMetrics): string {
+  const d = metrics.deficitMm2;
+  if (d.value === null) return undefinedBecause(d.reason);
+  const rounding = 16 * Number.EPSILON * metrics.lengthMm * metrics.lengthMm;
+  return Math.abs(d.value) <= rounding ? '0 mm² (to rounding)' : `${formatNumber(d.value)} mm²`;
 }
 
 /** Where the contour lies; for a hole, whether it turns opposite its outline (information only). */
@@ -64,10 +90,10 @@ function geometryRows(entry: CardSource, result: AnalysisFigures): CardRow[] {
   const f = (v: number) => formatNumber(v);
   // R − ρ carries both radii's error bounds; the Bonnesen bound is exact up to the deficit's rounding.
   const gapError = (r.inradius.value?.errorBoundMm ?? 0) + (r.circumradius.value?.errorBoundMm ?? 0);
-  const gapBound = formatNumber(gapError) === '0' ? '' : ` ± ${formatNumber(gapError)}`;
+  const gapBound = plusMinus(gapError);
   const gap = r.radiusGapMm.value === null ? undefinedBecause(r.radiusGapMm.reason)
-    : r.bonnesenBoundMm.value === null ? `${f(r.radiusGapMm.value)}${gapBound} mm measured (Bonnesen bound ${undefinedBecause(r.bonnesenBoundMm.reason)})`
-    : `${f(r.radiusGapMm.value)}${gapBound} mm measured; Bonnesen bound √D/π = ${f(r.bonnesenBoundMm.value)} mm`;
+    : r.bonnesenBoundMm.value === null ? `${length(r.radiusGapMm.value)}${gapBound} mm measured (Bonnesen bound ${undefinedBecause(r.bonnesenBoundMm.reason)})`
+    : `${length(r.radiusGapMm.value)}${gapBound} mm measured; Bonnesen bound √D/π = ${length(r.bonnesenBoundMm.value)} mm`;
   const rows: CardRow[] = [
     { label: 'Inradius ρ', value: circle(r.inradius) },
     { label: 'Circumradius R', value: circle(r.circumradius) },
@@ -125,7 +151,7 @@ export function getContourCard(entry: CardSource, result: AnalysisFigures): Cont
       { label: 'Perimeter', value: measured(metrics.perimeterMm, 'mm') },
       { label: 'Area', value: measured(metrics.areaMm2, 'mm²') },
       { label: 'Roundness Q = 4πA/L²', value: measured(metrics.q, '') },
-      { label: 'Deficit L² − 4πA', value: measured(metrics.deficitMm2, 'mm²') },
+      { label: 'Deficit L² − 4πA', value: deficit(metrics) },
       ...geometryRows(entry, result),
       { label: 'Bounding box', value: bbox },
       { label: 'Units', value: describeUnits(result.units) },

@@ -155,55 +155,45 @@ export function startServer(connection: Connection, analyser: Analyser): void {
     });
   });
 
-  connection.onHover((params, token) =>
-    runSafeAsync(
+  /**
+   * A guarded request on one document's analysis: `fallback` when the document is not open, has no
+   * analysis (not a file Loopwise reads, outdated, cancelled) or the answer fails.
+   */
+  function answerFromAnalysis<T>(
+    uri: string,
+    token: CancellationToken,
+    fallback: T,
+    what: string,
+    answer: (result: AnalysisFigures, document: TextDocument) => T,
+  ): Promise<T> {
+    return runSafeAsync(
       connection.console,
       token,
       async () => {
-        const document = documents.get(params.textDocument.uri);
-        if (!document) return null;
-        const result = await getAnalysis(document, token);
-        if (!result) return null;
-        return getHover(result, document, document.offsetAt(params.position), features.hoverKind);
+        const document = documents.get(uri);
+        const result = document && (await getAnalysis(document, token));
+        return document && result ? answer(result, document) : fallback;
       },
-      null,
-      `hover in ${params.textDocument.uri}`,
-    ),
+      fallback,
+      `${what} in ${uri}`,
+    );
+  }
+
+  connection.onHover((params, token) =>
+    answerFromAnalysis(params.textDocument.uri, token, null, 'hover', (result, document) =>
+      getHover(result, document, document.offsetAt(params.position), features.hoverKind)),
   );
 
   connection.onDocumentSymbol((params, token) =>
-    runSafeAsync(
-      connection.console,
-      token,
-      async () => {
-        const document = documents.get(params.textDocument.uri);
-        if (!document) return [];
-        const result = await getAnalysis(document, token);
-        if (!result) return [];
-        return getDocumentSymbols(result.contours, document);
-      },
-      [],
-      `document symbols in ${params.textDocument.uri}`,
-    ),
+    answerFromAnalysis(params.textDocument.uri, token, [], 'document symbols', (result, document) =>
+      getDocumentSymbols(result.contours, document)),
   );
 
-  connection.onCodeAction((params, token) =>
-    runSafeAsync(
-      connection.console,
-      token,
-      async () => {
-        const document = documents.get(params.textDocument.uri);
-        if (!document || !features.codeActionLiterals) return [];
-        const result = await getAnalysis(document, token);
-        if (!result) return [];
-        return getCodeActions(result, document, params.context.diagnostics, {
-          documentChanges: features.documentChanges,
-        });
-      },
-      [],
-      `code actions in ${params.textDocument.uri}`,
-    ),
+  connection.onCodeAction(async (params, token) =>
+    !features.codeActionLiterals ? [] : answerFromAnalysis(params.textDocument.uri, token, [], 'code actions', (result, document) =>
+      getCodeActions(result, document, params.context.diagnostics, { documentChanges: features.documentChanges })),
   );
+
 
   connection.onRequest(ReanalyzeRequest, (_params, token) =>
     runSafeAsync(

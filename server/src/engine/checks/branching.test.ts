@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { dxf, line } from '../../../../test/support/dxfText';
 import { analyze } from '../index';
 
-
 describe('branching', () => {
   it('is silent for loose lines that chain into one closed outline', () => {
     const r = analyze(dxf(line(0, 0, 10, 0), line(10, 0, 10, 10), line(10, 10, 0, 0)), 'dxf');

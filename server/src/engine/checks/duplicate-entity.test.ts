@@ -3,7 +3,6 @@ import { applyEdits } from '../../../../test/support/applyEdits';
 import { dxf } from '../../../../test/support/dxfText';
 import { analyze } from '../index';
 
-
 describe('duplicate-entity', () => {
   it('is silent for two circles of different radius at one centre', () => {
     const r = analyze(dxf(['0', 'CIRCLE', '8', 'CUT', '10', 0, '20', 0, '40', 1], ['0', 'CIRCLE', '8', 'CUT', '10', 0, '20', 0, '40', 2]), 'dxf');

@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { dxf } from '../../../../test/support/dxfText';
 import { analyze } from '../index';
 
-
 describe('not-analysed', () => {
   it('is silent for a drawing of outlines only', () => {
     const r = analyze(dxf(['0', 'CIRCLE', '8', 'CUT', '10', 0, '20', 0, '40', 1]), 'dxf');

@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { dxf } from '../../../../test/support/dxfText';
 import { analyze } from '../index';
 
-
 describe('out-of-plane', () => {
   it('is silent for an ARC mirrored by extrusion (0, 0, -1), which stays in the plane (REFERENCES.md §6.5)', () => {
     const r = analyze(dxf(['0', 'CIRCLE', '8', 'CUT', '10', 5, '20', 0, '40', 2, '210', 0, '220', 0, '230', -1]), 'dxf');

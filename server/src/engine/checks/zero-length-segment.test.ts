@@ -7,6 +7,8 @@ checkCases(zeroLengthSegment, {
   valid: [
     { name: 'a square without repeated points', svg: '<path d="M0 0H10V10H0Z"/>' },
     { name: 'a full circle element', svg: '<circle cx="5" cy="5" r="5"/>' },
+    // A cubic loop whose ends meet: its length is about 20.4 mm (a 1e6-chord polyline, computed once), not 0.
+    { name: 'a cubic whose ends meet but which loops', svg: '<path d="M0 0 C10 10 -10 10 0 0 H10 V10 Z"/>' },
   ],
   invalid: [
     {

@@ -1,4 +1,4 @@
-import { getSegmentLength } from '../geometry/measure';
+import { getSegmentEnd, getSegmentLength } from '../geometry/measure';
 import { ZERO_LENGTH_MM } from '../geometry/tolerances';
 import { defineCheck } from './defineCheck';
 
@@ -13,6 +13,9 @@ export default defineCheck({
   run(ctx) {
     for (const { contour } of ctx.contours) {
       for (const segment of contour.segments) {
+        // A curve is never shorter than its chord, so only a segment whose ends (nearly) meet needs its length.
+        const [ex, ey] = getSegmentEnd(segment);
+        if (Math.hypot(ex - segment.x0, ey - segment.y0) >= ZERO_LENGTH_MM) continue;
         const lengthMm = getSegmentLength(segment);
         if (lengthMm >= ZERO_LENGTH_MM) continue;
         ctx.report({ messageId: 'zero', span: segment.span, contour: contour.index, data: { contour: contour.index, lengthMm } });

@@ -1,36 +1,40 @@
 /**
  * Chaining: joins loose open pieces (lines, arcs, open polylines, splines) end to end into contours.
  *
- * Ends closer than a tolerance are clustered: a hash grid of square cells of side tolerance, each cell
- * compared with itself and its adjacent cells, union–find over the hits. Expected O(n) for n ends
- * (ends at exactly one point are tested once); only many distinct ends crowded into a few adjacent
- * cells cost more (the pairs between them). A cluster of exactly two ends joins two pieces (or closes one
- * piece on itself); a cluster of three or more ends is a branch point: it is reported, its first two
- * ends (in file order) are joined and the others stay free ends. Pieces are then walked from end to
- * end, reversing those that run the other way. Pieces join only within the same group (a DXF layer).
+ * Ends closer than a tolerance are clustered. Each end falls in a square cell of side tolerance (column
+ * ⌊x / tolerance⌋, row ⌊y / tolerance⌋), so ends within the tolerance lie in the same or adjacent cells.
+ * The ends are radix-sorted by (group, column, row), which puts each cell's ends side by side and the
+ * cells in an order a sweep can follow: each cell is compared with itself, the next cell (row + 1) and
+ * the three cells of the next column found by a moving cursor, and union–find joins the hits. Ends at
+ * exactly one point are tested once, so the cost is O(n) for n ends but for many distinct ends crowded
+ * into a few adjacent cells (the pairs between them). A cluster of exactly two ends joins two pieces (or
+ * closes one piece on itself); a cluster of three or more ends is a branch point: it is reported, its
+ * first two ends (in input order) are joined and the others stay free ends. Pieces are then walked from
+ * end to end, reversing those that run the other way. Pieces join only within the same group (a DXF
+ * layer). Everything is typed arrays: a million pieces make no million objects, and the sorted sweep
+ * reads memory in order where a hash table of cells would miss the cache on every probe.
  */
 import type { Segment } from '../types';
 
-/** The open pieces to chain, as flat numbers (a million pieces make no million objects). */
+/** The open pieces to chain, as flat numbers. */
 export interface ChainInput {
   /** Start x, start y, end x, end y of each piece, in its own drawing direction. */
   readonly ends: Float64Array;
-  /** The group of each piece: pieces join only with pieces of the same group. */
-  readonly groups: readonly string[];
+  /** The group of each piece (a small non-negative integer): pieces join only within one group. */
+  readonly groups: Int32Array;
 }
 
-export interface ChainLink {
-  /** Index into the input pieces. */
-  readonly piece: number;
-  /** True when the piece is walked from its end to its start. */
-  readonly reversed: boolean;
-}
-
-export interface Chain {
-  /** Pieces in walking order; the first piece keeps its own direction when the chain is closed. */
-  readonly links: readonly ChainLink[];
-  /** True when the last end joins the first start. */
-  readonly closed: boolean;
+export interface ChainResult {
+  /**
+   * The chains' links, chain after chain, each the end by which the walk enters a piece: 2 × piece
+   * (walked in its own direction) or 2 × piece + 1 (walked from its end to its start, reversed).
+   */
+  readonly links: Int32Array;
+  /** Chain k is links[starts[k]] … links[starts[k + 1] − 1]; chains are ordered by their lowest piece index. */
+  readonly starts: Int32Array;
+  /** 1 when chain k's last end joins its first start; a closed chain starts at its lowest piece, in its own direction. */
+  readonly closed: Uint8Array;
+  readonly branches: readonly BranchPoint[];
 }
 
 /** Three or more piece ends within the tolerance of one another. */
@@ -40,152 +44,305 @@ export interface BranchPoint {
   readonly pieces: readonly number[];
 }
 
-export interface ChainResult {
-  /** Every input piece appears in exactly one chain; chains are ordered by their lowest piece index. */
-  readonly chains: readonly Chain[];
-  readonly branches: readonly BranchPoint[];
+/** Number of chains in a result. */
+export function getChainCount(r: ChainResult): number {
+  return r.starts.length - 1;
 }
 
-/** Column and row steps to the 4 adjacent cells that come after a cell in (column, row) order. */
-const NEIGHBOUR_STEPS = [0, 1, 1, -1, 1, 0, 1, 1];
+/** Bits per radix-sort digit: 2048 buckets, whose counters stay in the first-level cache. */
+const DIGIT_BITS = 11;
+const DIGIT_MASK = (1 << DIGIT_BITS) - 1;
 
-function findRoot(parent: Int32Array, i: number): number {
-  let r = i;
-  while (parent[r] !== r) r = parent[r];
-  while (parent[i] !== r) {
-    const next = parent[i];
-    parent[i] = r;
-    i = next;
+/** Bit view of one double, for order-preserving sort keys. */
+const KEY_NUMBER = new Float64Array(1);
+const KEY_WORDS = new Uint32Array(KEY_NUMBER.buffer);
+
+/**
+ * Sorts records of `width` unsigned words by their first `keyWidth` words (most significant first)
+ * with a stable least-significant-digit radix sort that moves whole records, so each pass reads in
+ * order and writes one stream per digit value. Digits equal in every record are skipped: coordinates
+ * that vary in few bits cost few passes. Returns the sorted records (`records` or a new array).
+ */
+function sortRecords(records: Uint32Array, width: number, keyWidth: number): Uint32Array {
+  const m = records.length / width;
+  let from: Uint32Array = records;
+  let to: Uint32Array = new Uint32Array(records.length);
+  const count = new Int32Array(1 << DIGIT_BITS);
+  for (let w = keyWidth - 1; w >= 0; w--) {
+    let all = 0xffffffff, any = 0;
+    for (let i = w; i < from.length; i += width) {
+      all &= from[i];
+      any |= from[i];
+    }
+    const varying = (all ^ any) >>> 0;
+    for (let shift = 0; shift < 32; shift += DIGIT_BITS) {
+      if (((varying >>> shift) & DIGIT_MASK) === 0) continue;
+      count.fill(0);
+      for (let i = w; i < from.length; i += width) count[(from[i] >>> shift) & DIGIT_MASK]++;
+      let sum = 0;
+      for (let d = 0; d <= DIGIT_MASK; d++) {
+        const c = count[d];
+        count[d] = sum;
+        sum += c;
+      }
+      for (let i = 0; i < m; i++) {
+        const at = width * i;
+        const j = width * count[(from[at + w] >>> shift) & DIGIT_MASK]++;
+        for (let v = 0; v < width; v++) to[j + v] = from[at + v];
+      }
+      const t = from;
+      from = to;
+      to = t;
+    }
   }
-  return r;
+  return from;
+}
+
+/**
+ * Sort key words of cell numbers (integers, ±Infinity; no NaN, no −0): one word per number, its offset
+ * from the least, when all are finite and span less than 2³² (exact: the offsets of distinct doubles
+ * so close are distinct integers); otherwise two, the IEEE bits with the sign flipped (and all bits
+ * flipped for negatives), whose unsigned order is numeric order.
+ */
+function getKeyWords(values: Float64Array): Uint32Array[] {
+  let min = Infinity, max = -Infinity;
+  for (const v of values) {
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const m = values.length;
+  if (max - min < 2 ** 32) {
+    const word = new Uint32Array(m);
+    for (let i = 0; i < m; i++) word[i] = values[i] - min;
+    return [word];
+  }
+  const hi = new Uint32Array(m), lo = new Uint32Array(m);
+  for (let i = 0; i < m; i++) {
+    KEY_NUMBER[0] = values[i];
+    const l = KEY_WORDS[0], h = KEY_WORDS[1];
+    if (h >= 0x80000000) {
+      hi[i] = ~h >>> 0;
+      lo[i] = ~l >>> 0;
+    } else {
+      hi[i] = (h | 0x80000000) >>> 0;
+      lo[i] = l;
+    }
+  }
+  return [hi, lo];
 }
 
 /** Joins pieces whose ends lie within `tolerance` (> 0, same unit as the coordinates) of each other. */
 export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
   const n = input.groups.length;
-  if (n === 0) return { chains: [], branches: [] };
+  const ends = input.ends;
   const endCount = 2 * n;
-  const ex = new Float64Array(endCount);
-  const ey = new Float64Array(endCount);
-  for (let e = 0; e < endCount; e++) {
-    ex[e] = input.ends[2 * e];
-    ey[e] = input.ends[2 * e + 1];
+
+  // Cells of the ends. An end with a NaN coordinate is alone: it is left out of the sort.
+  let m = 0;
+  const valid = new Int32Array(endCount);
+  for (let e = 0; e < endCount; e++) if (!Number.isNaN(ends[2 * e]) && !Number.isNaN(ends[2 * e + 1])) valid[m++] = e;
+  const groups = new Uint32Array(m), cols = new Float64Array(m), rows = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    const e = valid[k];
+    groups[k] = input.groups[e >> 1];
+    cols[k] = Math.floor(ends[2 * e] / tolerance) + 0;
+    rows[k] = Math.floor(ends[2 * e + 1] / tolerance) + 0;
   }
-  const parent = new Int32Array(endCount);
-  for (let e = 0; e < endCount; e++) parent[e] = e;
-  const union = (a: number, b: number) => {
-    const ra = findRoot(parent, a), rb = findRoot(parent, b);
-    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
-  };
-  const groupIds = new Map<string, number>();
-  const group = new Int32Array(n);
-  for (let i = 0; i < n; i++) {
-    const g = input.groups[i];
-    let id = groupIds.get(g);
-    if (id === undefined) groupIds.set(g, (id = groupIds.size));
-    group[i] = id;
+  // Records: the key words that vary, the end, (a pad to 8 bytes), x and y; sorted by (group, column, row).
+  const groupVaries = groups.some((g) => g !== groups[0]);
+  const keyWords = [groups, ...getKeyWords(cols), ...getKeyWords(rows)].filter((word) => word.some((v) => v !== word[0]));
+  const keyWidth = keyWords.length;
+  const width = 2 * Math.ceil((keyWidth + 1) / 2) + 4;
+  let records: Uint32Array = new Uint32Array(m * width);
+  let coords = new Float64Array(records.buffer);
+  for (let k = 0; k < m; k++) {
+    const e = valid[k];
+    for (let v = 0; v < keyWidth; v++) records[width * k + v] = keyWords[v][k];
+    records[width * k + keyWidth] = e;
+    coords[(width * k) / 2 + width / 2 - 2] = ends[2 * e];
+    coords[(width * k) / 2 + width / 2 - 1] = ends[2 * e + 1];
+  }
+  records = sortRecords(records, width, keyWidth);
+  coords = new Float64Array(records.buffer);
+  // Sorted position → end, and the ends' coordinates and groups in sorted order.
+  const perm = new Int32Array(m);
+  const sx = new Float64Array(m), sy = new Float64Array(m), sg = new Int32Array(m);
+  for (let p = 0; p < m; p++) {
+    const e = records[width * p + keyWidth];
+    perm[p] = e;
+    sx[p] = coords[(width * p) / 2 + width / 2 - 2];
+    sy[p] = coords[(width * p) / 2 + width / 2 - 1];
+    sg[p] = groupVaries ? records[width * p] : groups[0];
   }
 
-  // Hash grid of ends (open addressing): a slot holds the first end of its cell, whose column, row and
-  // group identify the cell. Cells have the tolerance as side, so ends within the tolerance lie in the
-  // same or an adjacent cell.
-  const col = new Float64Array(endCount);
-  const row = new Float64Array(endCount);
-  for (let e = 0; e < endCount; e++) {
-    col[e] = Math.floor(ex[e] / tolerance);
-    row[e] = Math.floor(ey[e] / tolerance);
-  }
-  let capacity = 16;
-  while (capacity < 1.5 * endCount) capacity *= 2;
-  const mask = capacity - 1;
-  const slots = new Int32Array(capacity).fill(-1);
-  const nextInCell = new Int32Array(endCount).fill(-1);
-  const usedSlots: number[] = [];
-  /** The slot of a cell, or −1 − (the free slot where it would go). */
-  const findCell = (cx: number, cy: number, g: number): number => {
-    // Mix all bits into the low ones the mask keeps (murmur3's finaliser): lattice-aligned ends would crowd a few slots.
-    let h = Math.imul(cx | 0, 0x9e3779b1) ^ Math.imul(cy | 0, 0x85ebca77) ^ Math.imul(g, 0xc2b2ae3d);
-    h = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
-    h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35);
-    h = (h ^ (h >>> 16)) & mask;
-    for (let first = slots[h]; first >= 0; first = slots[h]) {
-      if (col[first] === cx && row[first] === cy && group[first >> 1] === g) return h;
-      h = (h + 1) & mask;
+  // The cells: runs of equal (group, column, row).
+  const cellStart = new Int32Array(m + 1);
+  const cellGroup = new Int32Array(m);
+  const cellCol = new Float64Array(m), cellRow = new Float64Array(m);
+  let cellCount = 0;
+  for (let p = 0; p < m; p++) {
+    const g = sg[p], c = Math.floor(sx[p] / tolerance) + 0, r = Math.floor(sy[p] / tolerance) + 0;
+    const last = cellCount - 1;
+    if (last < 0 || cellGroup[last] !== g || cellCol[last] !== c || cellRow[last] !== r) {
+      cellStart[cellCount] = p;
+      cellGroup[cellCount] = g;
+      cellCol[cellCount] = c;
+      cellRow[cellCount] = r;
+      cellCount++;
     }
-    return -1 - h;
+  }
+  cellStart[cellCount] = m;
+
+  // Union–find over sorted positions; the root of a set is its lowest position.
+  const parent = new Int32Array(m);
+  for (let p = 0; p < m; p++) parent[p] = p;
+  const find = (i: number): number => {
+    let r = i;
+    while (parent[r] !== r) r = parent[r];
+    while (parent[i] !== r) {
+      const next = parent[i];
+      parent[i] = r;
+      i = next;
+    }
+    return r;
+  };
+  const union = (a: number, b: number) => {
+    const ra = find(a), rb = find(b);
+    if (ra < rb) parent[rb] = ra;
+    else if (rb < ra) parent[ra] = rb;
   };
   const tol2 = tolerance * tolerance;
-  for (let e = 0; e < endCount; e++) {
-    const x = ex[e], y = ey[e];
-    const slot = findCell(col[e], row[e], group[e >> 1]);
-    if (slot < 0) {
-      slots[-1 - slot] = e;
-      usedSlots.push(-1 - slot);
-      continue;
-    }
-    let twin = -1;
-    for (let p = slots[slot]; p >= 0; p = nextInCell[p]) {
-      if (ex[p] === x && ey[p] === y) { twin = p; break; }
-    }
-    if (twin >= 0) {
-      // An end at exactly the same point joins everything its twin joins: it needs no tests of its own,
-      // which keeps thousands of ends at one point linear.
-      union(e, twin);
-    } else {
-      nextInCell[e] = slots[slot];
-      slots[slot] = e;
+
+  // Each cell's distinct points (its representatives): an end at exactly the point of an earlier one
+  // joins it and is never tested again, which keeps thousands of ends at one point linear.
+  const reps = new Int32Array(m);
+  const repStart = new Int32Array(cellCount + 1);
+  let repCount = 0;
+  for (let cell = 0; cell < cellCount; cell++) {
+    const first = repCount;
+    repStart[cell] = first;
+    for (let p = cellStart[cell]; p < cellStart[cell + 1]; p++) {
+      const x = sx[p], y = sy[p];
+      let twin = -1;
+      for (let k = first; k < repCount; k++) {
+        const q = reps[k];
+        if (sx[q] === x && sy[q] === y) { twin = q; break; }
+      }
+      if (twin >= 0) {
+        union(p, twin);
+        continue;
+      }
+      for (let k = first; k < repCount; k++) {
+        const q = reps[k];
+        const dx = sx[q] - x, dy = sy[q] - y;
+        if (dx * dx + dy * dy <= tol2) union(p, q);
+      }
+      reps[repCount++] = p;
     }
   }
-  // Pairs within one cell, then with the 4 adjacent cells that come after it in (column, row) order.
-  for (const a of usedSlots) {
-    const head = slots[a];
-    const cx = col[head], cy = row[head], g = group[head >> 1];
-    for (let p = slots[a]; p >= 0; p = nextInCell[p]) {
-      for (let q = nextInCell[p]; q >= 0; q = nextInCell[q]) {
-        const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
+  repStart[cellCount] = repCount;
+
+  /** Tests the representatives of two different cells pairwise. */
+  const joinCells = (a: number, b: number) => {
+    for (let i = repStart[a]; i < repStart[a + 1]; i++) {
+      const p = reps[i];
+      const x = sx[p], y = sy[p];
+      for (let k = repStart[b]; k < repStart[b + 1]; k++) {
+        const q = reps[k];
+        const dx = sx[q] - x, dy = sy[q] - y;
         if (dx * dx + dy * dy <= tol2) union(p, q);
       }
     }
-    for (let k = 0; k < NEIGHBOUR_STEPS.length; k += 2) {
-      const b = findCell(cx + NEIGHBOUR_STEPS[k], cy + NEIGHBOUR_STEPS[k + 1], g);
-      if (b < 0) continue;
-      for (let p = slots[a]; p >= 0; p = nextInCell[p]) {
-        for (let q = slots[b]; q >= 0; q = nextInCell[q]) {
-          const dx = ex[q] - ex[p], dy = ey[q] - ey[p];
-          if (dx * dx + dy * dy <= tol2) union(p, q);
-        }
+  };
+  /** Order of cell i against the key (g, c, r): negative, 0 or positive. */
+  const compareCell = (i: number, g: number, c: number, r: number) =>
+    cellGroup[i] !== g ? cellGroup[i] - g : cellCol[i] !== c ? (cellCol[i] < c ? -1 : 1) : cellRow[i] !== r ? (cellRow[i] < r ? -1 : 1) : 0;
+  // The cursor: the first cell not below the last key sought. Keys sought mostly grow, so it moves
+  // forward; it gallops, so a key far away (or behind, with huge coordinates) costs a logarithm.
+  let cursor = 0;
+  const seekCell = (g: number, c: number, r: number): number => {
+    let lo: number, hi: number;
+    if (cursor < cellCount && compareCell(cursor, g, c, r) < 0) {
+      let step = 1;
+      lo = cursor + 1;
+      hi = lo;
+      while (hi < cellCount && compareCell(hi, g, c, r) < 0) {
+        lo = hi + 1;
+        hi += step;
+        step *= 2;
       }
+      hi = Math.min(hi, cellCount);
+    } else {
+      let step = 1;
+      hi = cursor;
+      lo = hi;
+      while (lo > 0 && compareCell(lo - 1, g, c, r) >= 0) {
+        hi = lo - 1;
+        lo -= step;
+        step *= 2;
+        if (lo < 0) lo = 0;
+      }
+    }
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (compareCell(mid, g, c, r) < 0) lo = mid + 1;
+      else hi = mid;
+    }
+    cursor = lo;
+    return cursor < cellCount && compareCell(cursor, g, c, r) === 0 ? cursor : -1;
+  };
+  // Each cell with the cell above it (the next one in the order, when it is adjacent) and the three
+  // cells of the next column, whose keys grow with the cell's, so the cursor only moves forward.
+  for (let cell = 0; cell < cellCount; cell++) {
+    const g = cellGroup[cell], c = cellCol[cell], r = cellRow[cell];
+    if (cell + 1 < cellCount && compareCell(cell + 1, g, c, r + 1) === 0) joinCells(cell, cell + 1);
+    for (let dr = -1; dr <= 1; dr++) {
+      const b = seekCell(g, c + 1, r + dr);
+      if (b >= 0 && b !== cell) joinCells(cell, b);
     }
   }
 
-  // Clusters, each listing its ends ascending (ends are visited in order).
-  const partner = new Int32Array(endCount).fill(-1);
-  const clusterSize = new Int32Array(endCount);
-  for (let e = 0; e < endCount; e++) clusterSize[findRoot(parent, e)]++;
-  const members = new Map<number, number[]>();
-  for (let e = 0; e < endCount; e++) {
-    const r = findRoot(parent, e);
-    if (clusterSize[r] < 2) continue;
-    if (clusterSize[r] === 2) {
-      if (r !== e) { partner[r] = e; partner[e] = r; }
-      continue;
-    }
-    let list = members.get(r);
-    if (!list) members.set(r, (list = []));
-    list.push(e);
+  // Clusters: sizes by root, then partners. A cluster of two joins its ends; one of three or more
+  // (a branch point) joins its two lowest ends, in input order.
+  const root = new Int32Array(m);
+  const clusterSize = new Int32Array(m);
+  for (let p = 0; p < m; p++) {
+    root[p] = parent[p] === p ? p : root[parent[p]];
+    clusterSize[root[p]]++;
   }
-  const branches: BranchPoint[] = [];
-  for (const list of members.values()) {
+  const partner = new Int32Array(endCount).fill(-1);
+  const crowds = new Map<number, number[]>();
+  for (let p = 0; p < m; p++) {
+    const r = root[p];
+    const size = clusterSize[r];
+    if (size === 2) {
+      if (r !== p) {
+        partner[perm[p]] = perm[r];
+        partner[perm[r]] = perm[p];
+      }
+    } else if (size > 2) {
+      let list = crowds.get(r);
+      if (!list) crowds.set(r, (list = []));
+      list.push(perm[p]);
+    }
+  }
+  const branches: (BranchPoint & { readonly firstEnd: number })[] = [];
+  for (const list of crowds.values()) {
+    list.sort((a, b) => a - b);
     partner[list[0]] = list[1];
     partner[list[1]] = list[0];
     const set = [...new Set(list.map((e) => e >> 1))].sort((a, b) => a - b);
-    branches.push({ x: ex[list[0]], y: ey[list[0]], pieces: set });
+    branches.push({ x: ends[2 * list[0]], y: ends[2 * list[0] + 1], pieces: set, firstEnd: list[0] });
   }
-  branches.sort((a, b) => a.pieces[0] - b.pieces[0]);
+  branches.sort((a, b) => a.pieces[0] - b.pieces[0] || a.firstEnd - b.firstEnd);
 
   // Walk: from the lowest unvisited piece go backwards to a free end (or all the way round), then forwards.
   const visited = new Uint8Array(n);
-  const chains: Chain[] = [];
+  const links = new Int32Array(n);
+  const starts = new Int32Array(n + 1);
+  const closedFlags = new Uint8Array(n);
+  let linkCount = 0;
+  let chainCount = 0;
   for (let first = 0; first < n; first++) {
     if (visited[first]) continue;
     // Backwards from the start end of `first` (end index 2*first).
@@ -199,23 +356,28 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
       // The neighbour is entered at its end q, so the chain now starts at its other end.
       startEnd = q ^ 1;
     }
-    const links: ChainLink[] = [];
+    starts[chainCount] = linkCount;
+    closedFlags[chainCount] = closed ? 1 : 0;
+    chainCount++;
     // A closed chain starts at `first`, in its own direction; an open one at the free end found above.
     let end = closed ? 2 * first : startEnd;
     for (;;) {
       const piece = end >> 1;
       if (visited[piece]) break;
       visited[piece] = 1;
-      const reversed = (end & 1) === 1;
-      links.push({ piece, reversed });
-      const out = end ^ 1;
-      const q = partner[out];
+      links[linkCount++] = end;
+      const q = partner[end ^ 1];
       if (q < 0) break;
       end = q;
     }
-    chains.push({ links, closed });
   }
-  return { chains, branches };
+  starts[chainCount] = linkCount;
+  return {
+    links,
+    starts: starts.subarray(0, chainCount + 1),
+    closed: closedFlags.subarray(0, chainCount),
+    branches: branches.map(({ x, y, pieces }) => ({ x, y, pieces })),
+  };
 }
 
 /** The same curve walked the other way (an arc: swap ends, θ0' = θ0 + sweep, sweep' = −sweep). */

@@ -9,7 +9,7 @@
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
-import { chainPieces, reverseSegments, type ChainLink } from '../../model/chain';
+import { chainPieces, getChainCount, reverseSegments } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -237,16 +237,19 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
     else open.push(i);
   }
   const ends = new Float64Array(4 * open.length);
-  const groups: string[] = new Array<string>(open.length);
+  const groups = new Int32Array(open.length);
+  const layerIds = new Map<string, number>();
   for (let k = 0; k < open.length; k++) {
     const p = pieces[open[k]];
     const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
     ends[4 * k] = p.segments[0].x0; ends[4 * k + 1] = p.segments[0].y0; ends[4 * k + 2] = x1; ends[4 * k + 3] = y1;
-    groups[k] = p.layer;
+    let id = layerIds.get(p.layer);
+    if (id === undefined) layerIds.set(p.layer, (id = layerIds.size));
+    groups[k] = id;
   }
-  const { chains, branches } = chainPieces({ ends, groups }, CHAIN_TOLERANCE_MM);
+  const chained = chainPieces({ ends, groups }, CHAIN_TOLERANCE_MM);
 
-  for (const br of branches) {
+  for (const br of chained.branches) {
     const ps = br.pieces.map((k) => pieces[open[k]]);
     problems.push({
       checkId: 'branching', messageId: 'branch', span: ps[0].span,
@@ -255,28 +258,28 @@ function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo,
     });
   }
 
-  for (const chain of chains) {
-    const links = chain.links;
-    const pieceOf = (l: ChainLink) => pieces[open[l.piece]];
-    const first = { piece: pieceOf(links[0]), reversed: links[0].reversed };
-    const last = { piece: pieceOf(links[links.length - 1]), reversed: links[links.length - 1].reversed };
+  for (let k = 0; k < getChainCount(chained); k++) {
+    const from = chained.starts[k], to = chained.starts[k + 1];
+    const pieceOf = (link: number) => pieces[open[link >> 1]];
+    const first = { piece: pieceOf(chained.links[from]), reversed: (chained.links[from] & 1) === 1 };
+    const last = { piece: pieceOf(chained.links[to - 1]), reversed: (chained.links[to - 1] & 1) === 1 };
     let segments: Segment[];
     let order = first.piece.order;
-    if (links.length === 1 && !first.reversed) {
+    if (to - from === 1 && !first.reversed) {
       segments = first.piece.segments;
     } else {
       segments = [];
-      for (const l of links) {
-        const p = pieceOf(l);
-        if (l.reversed) for (const s of reverseSegments(p.segments)) segments.push(s);
+      for (let l = from; l < to; l++) {
+        const p = pieceOf(chained.links[l]);
+        if ((chained.links[l] & 1) === 1) for (const s of reverseSegments(p.segments)) segments.push(s);
         else for (const s of p.segments) segments.push(s);
         if (p.order < order) order = p.order;
       }
     }
     const startSpan = first.reversed ? first.piece.endSpan : first.piece.startSpan;
     const endSpan = last.reversed ? last.piece.startSpan : last.piece.endSpan;
-    const single = links.length === 1 && first.piece.unflaggedPolyline;
-    const closed = chain.closed && !single;
+    const single = to - from === 1 && first.piece.unflaggedPolyline;
+    const closed = chained.closed[k] === 1 && !single;
     let closeFix: Fix | undefined;
     if (!closed && getGapMm(segments) <= fixMaxGapMm) {
       closeFix = single

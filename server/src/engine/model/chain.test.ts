@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Arc } from '../types';
-import { chainPieces as chainFlat, getChainCount, reverseSegment } from './chain';
+import { chainPieces as chainFlat, getChainCount } from './chain';
 
 interface TestPiece { x0: number; y0: number; x1: number; y1: number; group: string }
 const piece = (x0: number, y0: number, x1: number, y1: number, group = 'a'): TestPiece => ({ x0, y0, x1, y1, group });
@@ -156,18 +155,5 @@ describe('chainPieces', () => {
     expect(r.chains).toHaveLength(1);
     expect(r.chains[0].closed).toBe(true);
     expect(r.chains[0].links).toHaveLength(n);
-  });
-});
-
-describe('reverseSegment', () => {
-  it('reverses an arc by swapping its ends and running θ back (θ0 + sweep, −sweep)', () => {
-    const span = { start: 0, end: 1 };
-    const a: Arc = { kind: 'arc', x0: 1, y0: 0, x1: 0, y1: 1, cx: 0, cy: 0, ux: 1, uy: 0, vx: 0, vy: 1, theta0: 0, sweep: Math.PI / 2, span };
-    const r = reverseSegment(a) as Arc;
-    expect([r.x0, r.y0, r.x1, r.y1]).toEqual([0, 1, 1, 0]);
-    // The point at the new start angle is the old end point (unit circle, handbook).
-    expect(Math.cos(r.theta0)).toBeCloseTo(0, 15);
-    expect(Math.sin(r.theta0)).toBeCloseTo(1, 15);
-    expect(r.sweep).toBe(-Math.PI / 2);
   });
 });

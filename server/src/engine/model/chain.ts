@@ -14,7 +14,6 @@
  * layer). Everything is typed arrays: a million pieces make no million objects, and the sorted sweep
  * reads memory in order where a hash table of cells would miss the cache on every probe.
  */
-import type { Segment } from '../types';
 
 /** The open pieces to chain, as flat numbers. */
 export interface ChainInput {
@@ -378,25 +377,4 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
     closed: closedFlags.subarray(0, chainCount),
     branches: branches.map(({ x, y, pieces }) => ({ x, y, pieces })),
   };
-}
-
-/** The same curve walked the other way (an arc: swap ends, θ0' = θ0 + sweep, sweep' = −sweep). */
-export function reverseSegment(s: Segment): Segment {
-  switch (s.kind) {
-    case 'line':
-      return { kind: 'line', x0: s.x1, y0: s.y1, x1: s.x0, y1: s.y0, span: s.span };
-    case 'quad':
-      return { kind: 'quad', x0: s.x2, y0: s.y2, x1: s.x1, y1: s.y1, x2: s.x0, y2: s.y0, span: s.span };
-    case 'cubic':
-      return { kind: 'cubic', x0: s.x3, y0: s.y3, x1: s.x2, y1: s.y2, x2: s.x1, y2: s.y1, x3: s.x0, y3: s.y0, span: s.span };
-    case 'arc':
-      return { ...s, x0: s.x1, y0: s.y1, x1: s.x0, y1: s.y0, theta0: s.theta0 + s.sweep, sweep: -s.sweep };
-  }
-}
-
-/** A list of segments walked the other way. */
-export function reverseSegments(segments: readonly Segment[]): Segment[] {
-  const out: Segment[] = new Array<Segment>(segments.length);
-  for (let i = 0; i < segments.length; i++) out[segments.length - 1 - i] = reverseSegment(segments[i]);
-  return out;
 }

@@ -5,43 +5,10 @@
  */
 import { SPLINE_FIT_TOLERANCE_MM } from '../../geometry/tolerances';
 import type { Arc, Segment, SourceSpan } from '../../types';
-import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointGroups, PolyVertex } from './entities';
+import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PolyVertex } from './entities';
+import { PieceStore, type PieceFacts, type PolylineFixInfo } from './pieceStore';
 import { getSplineSegments } from './spline';
-import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine, mapSegment } from './transform';
-
-/** What a single-polyline contour needs for its close fix. */
-export interface PolylineFixInfo {
-  readonly kind: 'lwpolyline' | 'polyline';
-  readonly flags: number;
-  readonly flagsSpan?: SourceSpan;
-  readonly countSpan?: SourceSpan;
-  readonly insertFlagsAt: number;
-  readonly vertexCount: number;
-  /** The last vertex's text (LWPOLYLINE: its groups; POLYLINE: its VERTEX entity). */
-  readonly lastVertexSpan: SourceSpan;
-}
-
-export interface Piece {
-  /** Segments in the entity's own direction, WCS millimetres. */
-  readonly segments: Segment[];
-  /** Closed by the file (circle, full ellipse, closed polyline or spline). */
-  readonly closed: boolean;
-  /** Position of the top-level entity in the ENTITIES section (contour order). */
-  readonly order: number;
-  /** The top-level entity (or INSERT) the piece comes from. */
-  readonly span: SourceSpan;
-  readonly element: string;
-  readonly handle?: string;
-  readonly layer: string;
-  readonly startSpan: SourceSpan;
-  readonly endSpan: SourceSpan;
-  /** Which groups in `startSpan` / `endSpan` hold the start / end point, when a fix may move it. */
-  readonly startEdit?: PointGroups;
-  readonly endEdit?: PointGroups;
-  readonly polyline?: PolylineFixInfo;
-  /** An LWPOLYLINE or POLYLINE without its closed flag: its ends meeting is still an open contour. */
-  readonly unflaggedPolyline: boolean;
-}
+import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine } from './transform';
 
 /** Facts met while building pieces, reported by the reader. */
 export interface PieceNotes {
@@ -100,7 +67,7 @@ interface Frame {
 }
 
 export class PieceBuilder {
-  readonly pieces: Piece[] = [];
+  readonly store = new PieceStore();
   readonly notes: PieceNotes = { notAnalysed: new Map(), hiddenLayers: new Map(), ignoredLayers: new Map(), paperSpace: [], outOfPlane: [], malformed: [] };
   private instances = 0;
   private instanceCapReported = false;
@@ -181,14 +148,15 @@ export class PieceBuilder {
     return { ...f, m: compose(f.m, ocs), editable: false };
   }
 
-  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<Piece> = {}): void {
+  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<PieceFacts> = {}): void {
     const inBlock = f.depth > 0;
-    const spanOf = (s: SourceSpan) => (inBlock ? f.top.span : s);
     const m = f.m;
     const identity = !inBlock && m.a === 1 && m.b === 0 && m.c === 0 && m.d === 1 && m.e === 0 && m.f === 0;
-    const mapped = identity ? segments : segments.map((s) => mapSegment(m, s, spanOf(s.span)));
-    this.pieces.push({
-      segments: mapped,
+    for (const s of segments) {
+      const span = inBlock ? f.top.span : s.span;
+      this.store.addSegment(identity ? null : m, s, span.start, span.end);
+    }
+    this.store.addPiece({
       closed,
       order: f.top.order,
       span: f.top.span,
@@ -372,7 +340,7 @@ function samePoint(first: Segment, last: Segment): boolean {
 }
 
 /** End point of a segment. */
-export function getEnd(s: Segment): [number, number] {
+function getEnd(s: Segment): [number, number] {
   switch (s.kind) {
     case 'line':
     case 'arc':

@@ -9,11 +9,12 @@
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
-import { chainPieces, getChainCount, reverseSegments } from '../../model/chain';
+import { chainPieces, getChainCount } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
-import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointRef } from './entities';
+import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointGroups, type PointRef } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
-import { getEnd, PieceBuilder, type Piece } from './pieces';
+import { PieceBuilder } from './pieces';
+import type { PieceStore, PolylineFixInfo } from './pieceStore';
 import { getDxfUnits } from './units';
 
 export interface ReadDxfOptions {
@@ -51,7 +52,7 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
   const { builder, units } = reader.finish(doc);
   problems.push(...doc.problems, ...reader.problems);
   reportNotes(builder, doc.layers, problems);
-  const contours = buildContours(text, builder.pieces, units, doc.eol, options.nearClosedToleranceMm ?? Infinity, problems);
+  const contours = buildContours(text, builder.store, units, doc.eol, options.nearClosedToleranceMm ?? Infinity, problems);
   return { format: 'dxf', yAxis: 'up', units, contours, problems };
 }
 
@@ -210,104 +211,146 @@ function getValueText(text: string, start: number, end: number): string {
   return text.slice(start, end).trim();
 }
 
+/** What a close fix needs of the first or last piece of a chain. */
+interface FixPiece {
+  readonly element: string;
+  readonly startSpan: SourceSpan;
+  readonly endSpan: SourceSpan;
+  readonly startEdit?: PointGroups;
+  readonly endEdit?: PointGroups;
+  readonly polyline?: PolylineFixInfo;
+}
+
+function getFixPiece(store: PieceStore, i: number): FixPiece {
+  return {
+    element: store.getElement(i), startSpan: store.getSpan(i, 1), endSpan: store.getSpan(i, 2),
+    startEdit: store.getStartEdit(i), endEdit: store.getEndEdit(i), polyline: store.getPolyline(i),
+  };
+}
+
 /** The first or last piece of a chain and whether the chain walks it backwards. */
 interface ChainEnd {
-  readonly piece: Piece;
+  readonly piece: FixPiece;
   readonly reversed: boolean;
 }
 
-/** A contour before numbering: contours are numbered in the order of their first entity. */
-interface Draft {
-  readonly order: number;
-  readonly piece: Piece;
-  readonly segments: readonly Segment[];
-  readonly closed: boolean;
-  readonly startSpan: SourceSpan;
-  readonly endSpan: SourceSpan;
-  readonly closeFix?: Fix;
+/** Where a contour's start and end points are: x, y of the start, then of the end. */
+type Gap = Float64Array;
+
+function getGapMm(gap: Gap): number {
+  return Math.hypot(gap[2] - gap[0], gap[3] - gap[1]);
 }
 
-function buildContours(text: string, pieces: readonly Piece[], units: UnitsInfo, eol: string, fixMaxGapMm: number, problems: RawFinding[]): Contour[] {
-  const drafts: Draft[] = [];
+/**
+ * Contours from the pieces: closed pieces as they are, open ones chained; numbered in the order of
+ * their first entity (a stable sort of the drafts, closed pieces then chains), their `Segment` objects
+ * made once, in that order.
+ */
+function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: string, fixMaxGapMm: number, problems: RawFinding[]): Contour[] {
+  const n = store.pieceCount;
+  // Drafts: a closed piece (its index) or a chain (−1 − its index); their order and start/end spans.
+  const draftOf: number[] = [];
+  const draftOrder: number[] = [];
   const open: number[] = [];
-  for (let i = 0; i < pieces.length; i++) {
-    const p = pieces[i];
-    if (p.segments.length === 0) continue;
-    if (p.closed) drafts.push({ order: p.order, piece: p, segments: p.segments, closed: true, startSpan: p.startSpan, endSpan: p.endSpan });
-    else open.push(i);
+  for (let i = 0; i < n; i++) {
+    if (store.getSegmentCount(i) === 0) continue;
+    if (store.isClosed(i)) {
+      draftOf.push(i);
+      draftOrder.push(store.getOrder(i));
+    } else {
+      open.push(i);
+    }
   }
   const ends = new Float64Array(4 * open.length);
   const groups = new Int32Array(open.length);
-  const layerIds = new Map<string, number>();
   for (let k = 0; k < open.length; k++) {
-    const p = pieces[open[k]];
-    const [x1, y1] = getEnd(p.segments[p.segments.length - 1]);
-    ends[4 * k] = p.segments[0].x0; ends[4 * k + 1] = p.segments[0].y0; ends[4 * k + 2] = x1; ends[4 * k + 3] = y1;
-    let id = layerIds.get(p.layer);
-    if (id === undefined) layerIds.set(p.layer, (id = layerIds.size));
-    groups[k] = id;
+    store.getEndPoint(open[k], false, ends, 4 * k);
+    store.getEndPoint(open[k], true, ends, 4 * k + 2);
+    groups[k] = store.getLayerId(open[k]);
   }
   const chained = chainPieces({ ends, groups }, CHAIN_TOLERANCE_MM);
 
   for (const br of chained.branches) {
-    const ps = br.pieces.map((k) => pieces[open[k]]);
+    const ps = br.pieces.map((k) => open[k]);
     problems.push({
-      checkId: 'branching', messageId: 'branch', span: ps[0].span,
+      checkId: 'branching', messageId: 'branch', span: store.getSpan(ps[0], 0),
       data: { count: ps.length, xMm: br.x, yMm: br.y },
-      related: ps.slice(1, 1 + MAX_RELATED).map((p) => ({ span: p.span, message: `This ${p.element} also ends here` })),
+      related: ps.slice(1, 1 + MAX_RELATED).map((i) => ({ span: store.getSpan(i, 0), message: `This ${store.getElement(i)} also ends here` })),
     });
   }
 
-  for (let k = 0; k < getChainCount(chained); k++) {
+  const chainCount = getChainCount(chained);
+  const links = chained.links;
+  /** The chain's closed flag after the single-polyline rule. */
+  const chainClosed = new Uint8Array(chainCount);
+  const fixes = new Map<number, Fix>();
+  const gap: Gap = new Float64Array(4);
+  for (let k = 0; k < chainCount; k++) {
     const from = chained.starts[k], to = chained.starts[k + 1];
-    const pieceOf = (link: number) => pieces[open[link >> 1]];
-    const first = { piece: pieceOf(chained.links[from]), reversed: (chained.links[from] & 1) === 1 };
-    const last = { piece: pieceOf(chained.links[to - 1]), reversed: (chained.links[to - 1] & 1) === 1 };
-    let segments: Segment[];
-    let order = first.piece.order;
-    if (to - from === 1 && !first.reversed) {
-      segments = first.piece.segments;
-    } else {
-      segments = [];
-      for (let l = from; l < to; l++) {
-        const p = pieceOf(chained.links[l]);
-        if ((chained.links[l] & 1) === 1) for (const s of reverseSegments(p.segments)) segments.push(s);
-        else for (const s of p.segments) segments.push(s);
-        if (p.order < order) order = p.order;
-      }
-    }
-    const startSpan = first.reversed ? first.piece.endSpan : first.piece.startSpan;
-    const endSpan = last.reversed ? last.piece.startSpan : last.piece.endSpan;
-    const single = to - from === 1 && first.piece.unflaggedPolyline;
+    const first = open[links[from] >> 1], last = open[links[to - 1] >> 1];
+    const firstReversed = (links[from] & 1) === 1, lastReversed = (links[to - 1] & 1) === 1;
+    let order = store.getOrder(first);
+    for (let l = from + 1; l < to; l++) order = Math.min(order, store.getOrder(open[links[l] >> 1]));
+    draftOf.push(-1 - k);
+    draftOrder.push(order);
+    const single = to - from === 1 && store.isUnflaggedPolyline(first);
     const closed = chained.closed[k] === 1 && !single;
-    let closeFix: Fix | undefined;
-    if (!closed && getGapMm(segments) <= fixMaxGapMm) {
-      closeFix = single
-        ? getPolylineCloseFix(text, first.piece, segments, eol)
-        : getMoveEndFix(text, first, last, segments, units);
-    }
-    drafts.push({ order, piece: first.piece, segments, closed, startSpan, endSpan, closeFix });
+    chainClosed[k] = closed ? 1 : 0;
+    if (closed) continue;
+    store.getEndPoint(first, firstReversed, gap, 0);
+    store.getEndPoint(last, !lastReversed, gap, 2);
+    if (!(getGapMm(gap) <= fixMaxGapMm)) continue;
+    const firstEnd = { piece: getFixPiece(store, first), reversed: firstReversed };
+    const closeFix = single
+      ? getPolylineCloseFix(text, firstEnd.piece, gap, eol)
+      : getMoveEndFix(text, firstEnd, { piece: getFixPiece(store, last), reversed: lastReversed }, gap, units);
+    if (closeFix) fixes.set(k, closeFix);
   }
 
-  drafts.sort((a, b) => a.order - b.order);
-  const contours: Contour[] = new Array<Contour>(drafts.length);
-  for (let index = 0; index < drafts.length; index++) {
-    const d = drafts[index];
-    const p = d.piece;
+  // Stable sort by order: equal orders keep the draft order.
+  const sorted = Array.from(draftOf.keys()).sort((a, b) => draftOrder[a] - draftOrder[b] || a - b);
+  const contours: Contour[] = new Array<Contour>(sorted.length);
+  for (let index = 0; index < sorted.length; index++) {
+    const d = draftOf[sorted[index]];
+    const segments: Segment[] = [];
+    let p: number, closed: boolean, startSpan: SourceSpan, endSpan: SourceSpan, closeFix: Fix | undefined;
+    let span: SourceSpan;
+    if (d >= 0) {
+      p = d;
+      span = store.getSpan(p, 0);
+      store.appendSegments(p, false, span, segments);
+      closed = true;
+      startSpan = sameOrNew(span, store.getSpan(p, 1));
+      endSpan = sameOrNew(span, store.getSpan(p, 2));
+    } else {
+      const k = -1 - d;
+      const from = chained.starts[k], to = chained.starts[k + 1];
+      p = open[links[from] >> 1];
+      span = store.getSpan(p, 0);
+      for (let l = from; l < to; l++) {
+        const i = open[links[l] >> 1];
+        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments);
+      }
+      const last = open[links[to - 1] >> 1];
+      startSpan = sameOrNew(span, store.getSpan(p, (links[from] & 1) === 1 ? 2 : 1));
+      endSpan = sameOrNew(span, store.getSpan(last, (links[to - 1] & 1) === 1 ? 1 : 2));
+      closed = chainClosed[k] === 1;
+      closeFix = fixes.get(k);
+    }
     const c: Contour = {
-      index, segments: d.segments, closed: d.closed,
-      startX: d.segments[0].x0, startY: d.segments[0].y0,
-      span: p.span, startSpan: d.startSpan, endSpan: d.endSpan, elementSpan: p.span,
-      element: p.element, id: p.handle, layer: p.layer,
+      index, segments, closed,
+      startX: segments[0].x0, startY: segments[0].y0,
+      span, startSpan, endSpan, elementSpan: span,
+      element: store.getElement(p), id: store.getHandle(p), layer: store.getLayer(p),
     };
-    contours[index] = d.closeFix ? { ...c, closeFix: d.closeFix } : c;
+    contours[index] = closeFix ? { ...c, closeFix } : c;
   }
   return contours;
 }
 
-function getGapMm(segments: readonly Segment[]): number {
-  const [ex, ey] = getEnd(segments[segments.length - 1]);
-  return Math.hypot(ex - segments[0].x0, ey - segments[0].y0);
+/** `span` itself when `other` has its values (one object for both), else `other`. */
+function sameOrNew(span: SourceSpan, other: SourceSpan): SourceSpan {
+  return other.start === span.start && other.end === span.end ? span : other;
 }
 
 /**
@@ -315,7 +358,7 @@ function getGapMm(segments: readonly Segment[]): number {
  * segment runs from the last-but-one vertex to the first (the end moves onto the start; when the last
  * vertex repeats the first, nothing else changes).
  */
-function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[], eol: string): Fix | undefined {
+function getPolylineCloseFix(text: string, p: FixPiece, gap: Gap, eol: string): Fix | undefined {
   const info = p.polyline;
   if (!info || info.vertexCount < 3) return undefined;
   const edits: TextEdit[] = [];
@@ -332,7 +375,7 @@ function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[
   if (info.countSpan) edits.push(replaceValue(text, info.countSpan.start, info.countSpan.end, String(info.vertexCount - 1)));
   edits.push({ span: info.lastVertexSpan, newText: '' });
   edits.sort((a, b) => a.span.start - b.span.start);
-  const gapMm = getGapMm(segments);
+  const gapMm = getGapMm(gap);
   return {
     title: fillTemplate('Close the {entity}: drop its last vertex ({gapMm} mm from the first) and set the closed flag', { entity: p.element, gapMm }),
     edits,
@@ -340,7 +383,7 @@ function getPolylineCloseFix(text: string, p: Piece, segments: readonly Segment[
 }
 
 /** Near-closed chain: move one free end onto the other, editing only that point's value lines. */
-function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, segments: readonly Segment[], units: UnitsInfo): Fix | undefined {
+function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, gap: Gap, units: UnitsInfo): Fix | undefined {
   /** The value spans of a chain end's point, looked up in its entity's text. */
   const refAt = (end: ChainEnd, atPieceEnd: boolean): PointRef | undefined => {
     const which = atPieceEnd ? end.piece.endEdit : end.piece.startEdit;
@@ -348,8 +391,7 @@ function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, segments: 
   };
   const startRef = refAt(first, first.reversed);
   const endRef = refAt(last, !last.reversed);
-  const [ex, ey] = getEnd(segments[segments.length - 1]);
-  const sx = segments[0].x0, sy = segments[0].y0;
+  const sx = gap[0], sy = gap[1], ex = gap[2], ey = gap[3];
   const target = (ref: PointRef | undefined, xMm: number, yMm: number): [string, string] =>
     ref
       ? [getValueText(text, ref.xs, ref.xe), getValueText(text, ref.ys, ref.ye)]

@@ -1,0 +1,96 @@
+import { describe, expect, it } from 'vitest';
+import type { Arc, Segment } from '../../types';
+import { PieceStore, type PieceFacts } from './pieceStore';
+
+const span = { start: 0, end: 10 };
+const facts: PieceFacts = { closed: false, order: 0, span, element: 'LWPOLYLINE', layer: '0', startSpan: span, endSpan: span, unflaggedPolyline: false };
+const at = (x: number, y: number) => ({ x, y });
+const arcPoint = (a: Arc, t: number) => at(a.cx + a.ux * Math.cos(t) + a.vx * Math.sin(t), a.cy + a.uy * Math.cos(t) + a.vy * Math.sin(t));
+
+/** A store holding one piece of the given segments, read back forwards and backwards. */
+function roundTrip(segments: Segment[]): { forward: Segment[]; backward: Segment[] } {
+  const store = new PieceStore();
+  for (const s of segments) store.addSegment(null, s, s.span.start, s.span.end);
+  store.addPiece(facts);
+  const forward: Segment[] = [], backward: Segment[] = [];
+  store.appendSegments(0, false, span, forward);
+  store.appendSegments(0, true, span, backward);
+  return { forward, backward };
+}
+
+describe('PieceStore', () => {
+  const a: Arc = { kind: 'arc', x0: 1, y0: 0, x1: 0, y1: 1, cx: 0, cy: 0, ux: 1, uy: 0, vx: 0, vy: 1, theta0: 0, sweep: Math.PI / 2, span: { start: 2, end: 4 } };
+  const segments: Segment[] = [
+    { kind: 'line', x0: -0, y0: 1e-300, x1: 0.1, y1: 2 ** 53, span },
+    { kind: 'quad', x0: 0.1, y0: 2 ** 53, x1: 3, y1: 4, x2: 1, y2: 0, span },
+    a,
+    { kind: 'cubic', x0: 0, y0: 1, x1: 5, y1: 6, x2: 7, y2: 8, x3: 9, y3: 10, span: { start: 4, end: 10 } },
+  ];
+
+  it('gives back every segment field for field, −0 and extreme doubles included (IEEE 754 binary64, stored exactly)', () => {
+    const { forward } = roundTrip(segments);
+    expect(forward).toEqual(segments);
+    expect(Object.is(forward[0].x0, -0)).toBe(true);
+    expect(forward.map((s) => Object.keys(s))).toEqual(segments.map((s) => Object.keys(s)));
+  });
+
+  it('walks a piece backwards: segments in reverse order, each with its ends and control points swapped (common practice, no source)', () => {
+    const { backward } = roundTrip(segments);
+    expect(backward.map((s) => s.kind)).toEqual(['cubic', 'arc', 'quad', 'line']);
+    expect(backward[0]).toMatchObject({ x0: 9, y0: 10, x1: 7, y1: 8, x2: 5, y2: 6, x3: 0, y3: 1 });
+    expect(backward[2]).toMatchObject({ x0: 1, y0: 0, x1: 3, y1: 4, x2: 0.1, y2: 2 ** 53 });
+    expect(backward[3]).toMatchObject({ x0: 0.1, y0: 2 ** 53, x1: -0, y1: 1e-300 });
+  });
+
+  it('reverses an arc by swapping its ends and running θ back (θ0 + sweep, −sweep; unit circle, handbook)', () => {
+    const r = roundTrip([a]).backward[0] as Arc;
+    expect([r.x0, r.y0, r.x1, r.y1]).toEqual([0, 1, 1, 0]);
+    expect(r.sweep).toBe(-Math.PI / 2);
+    // The point at the new start angle is the old end point; at the end angle, the old start point.
+    expect(arcPoint(r, r.theta0).x).toBeCloseTo(0, 15);
+    expect(arcPoint(r, r.theta0).y).toBeCloseTo(1, 15);
+    expect(arcPoint(r, r.theta0 + r.sweep).x).toBeCloseTo(1, 15);
+    expect(arcPoint(r, r.theta0 + r.sweep).y).toBeCloseTo(0, 15);
+  });
+
+  it('maps segments as an affine map does, conjugate semi-diameters of an arc by the linear part only (REFERENCES.md §6.4 INSERT mapping)', () => {
+    const store = new PieceStore();
+    const m = { a: 0, b: 2, c: -2, d: 0, e: 5, f: -1 }; // rotate 90°, scale 2, move by (5, −1)
+    store.addSegment(m, a, 2, 4);
+    store.addPiece(facts);
+    const out: Segment[] = [];
+    store.appendSegments(0, false, span, out);
+    expect(out[0]).toEqual({ ...a, x0: 5, y0: 1, x1: 3, y1: -1, cx: 5, cy: -1, ux: 0, uy: 2, vx: -2, vy: 0, span: { start: 2, end: 4 } });
+  });
+
+  it('shares one span object between the piece and its segments that have its span, and keeps the others apart (memory, common practice)', () => {
+    const { forward } = roundTrip(segments);
+    expect(forward[0].span).toBe(span);
+    expect(forward[1].span).toBe(span);
+    expect(forward[2].span).not.toBe(span);
+    expect(forward[2].span).toEqual({ start: 2, end: 4 });
+  });
+
+  it('keeps piece facts: spans, point groups, names, handles and flags (common practice, no source)', () => {
+    const store = new PieceStore();
+    for (let i = 0; i < 3000; i++) {
+      store.addSegment(null, segments[i % 4], i, i + 1);
+      store.addPiece({
+        ...facts, order: i, closed: i % 3 === 0, unflaggedPolyline: i % 5 === 0, layer: `L${i % 7}`, element: i % 2 ? 'LINE' : 'ARC',
+        handle: i % 11 === 0 ? `H${i}` : undefined, startEdit: i % 2 ? 'first10' : undefined, endEdit: i % 2 ? 'first11' : 'last10',
+        span: { start: i, end: i + 9 }, startSpan: { start: i + 1, end: i + 2 }, endSpan: { start: i + 3, end: i + 4 },
+      });
+    }
+    expect(store.pieceCount).toBe(3000);
+    const i = 2999;
+    expect([store.getOrder(i), store.isClosed(i), store.isUnflaggedPolyline(i), store.getLayer(i), store.getElement(i), store.getHandle(i)])
+      .toEqual([2999, false, false, 'L3', 'LINE', undefined]);
+    expect([store.getSpan(i, 0), store.getSpan(i, 1), store.getSpan(i, 2)]).toEqual([{ start: 2999, end: 3008 }, { start: 3000, end: 3001 }, { start: 3002, end: 3003 }]);
+    expect([store.getStartEdit(i), store.getEndEdit(i), store.getEndEdit(2998), store.getHandle(2992)]).toEqual(['first10', 'first11', 'last10', 'H2992']);
+    expect(store.getLayerId(7)).toBe(store.getLayerId(0));
+    const ends = new Float64Array(4);
+    store.getEndPoint(2, false, ends, 0);
+    store.getEndPoint(2, true, ends, 2);
+    expect([...ends]).toEqual([1, 0, 0, 1]);
+  });
+});

@@ -1,0 +1,293 @@
+/**
+ * The pieces of a DXF drawing as flat records: segment coordinates in one growing Float64Array, spans,
+ * kinds and piece facts in Int32Arrays, names (entity types, layers) once each. A million-entity file
+ * then holds no object per piece or per segment while it is read and chained; the `Segment` objects of
+ * the result are made once, in contour order and drawing direction (`appendSegments`).
+ */
+import type { Arc, Segment, SourceSpan } from '../../types';
+import type { PointGroups } from './entities';
+import type { Affine } from './transform';
+
+/** What a single-polyline contour needs for its close fix. */
+export interface PolylineFixInfo {
+  readonly kind: 'lwpolyline' | 'polyline';
+  readonly flags: number;
+  readonly flagsSpan?: SourceSpan;
+  readonly countSpan?: SourceSpan;
+  readonly insertFlagsAt: number;
+  readonly vertexCount: number;
+  /** The last vertex's text (LWPOLYLINE: its groups; POLYLINE: its VERTEX entity). */
+  readonly lastVertexSpan: SourceSpan;
+}
+
+/** The facts of one piece that are not geometry, as given to `addPiece`. */
+export interface PieceFacts {
+  /** Closed by the file (circle, full ellipse, closed polyline or spline). */
+  readonly closed: boolean;
+  /** Position of the top-level entity in the ENTITIES section (contour order). */
+  readonly order: number;
+  /** The top-level entity (or INSERT) the piece comes from. */
+  readonly span: SourceSpan;
+  readonly element: string;
+  readonly handle?: string;
+  readonly layer: string;
+  readonly startSpan: SourceSpan;
+  readonly endSpan: SourceSpan;
+  /** Which groups in `startSpan` / `endSpan` hold the start / end point, when a fix may move it. */
+  readonly startEdit?: PointGroups;
+  readonly endEdit?: PointGroups;
+  readonly polyline?: PolylineFixInfo;
+  /** An LWPOLYLINE or POLYLINE without its closed flag: its ends meeting is still an open contour. */
+  readonly unflaggedPolyline: boolean;
+}
+
+/** Segment kinds in the store and their number of coordinates (`Segment` field order after `kind`). */
+const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
+const COORDINATES = [4, 6, 8, 12];
+/** Offset of the end point's x among a segment's coordinates, by kind. */
+const END_AT = [2, 4, 6, 2];
+
+/** Piece flag bits; a point-group code (0 none) sits at START_EDIT_SHIFT and END_EDIT_SHIFT. */
+const CLOSED = 1, UNFLAGGED = 2, START_EDIT_SHIFT = 2, END_EDIT_SHIFT = 4;
+const POINT_GROUPS: readonly (PointGroups | undefined)[] = [undefined, 'first10', 'last10', 'first11'];
+
+function getPointGroupsCode(which: PointGroups | undefined): number {
+  return which === undefined ? 0 : POINT_GROUPS.indexOf(which);
+}
+
+function grownInt32(a: Int32Array, size: number): Int32Array {
+  if (size <= a.length) return a;
+  const b = new Int32Array(Math.max(size, 2 * a.length));
+  b.set(a);
+  return b;
+}
+
+function grownFloat64(a: Float64Array, size: number): Float64Array {
+  if (size <= a.length) return a;
+  const b = new Float64Array(Math.max(size, 2 * a.length));
+  b.set(a);
+  return b;
+}
+
+/** Fields of a piece record: one past its last segment, order, flag bits, name ids, spans (start, end) ×3. */
+const SEGMENT_END = 0, ORDER = 1, FLAGS = 2, ELEMENT = 3, LAYER = 4, SPANS = 5;
+const PIECE_WIDTH = 12;
+/** Fields of a segment record: kind, first coordinate, span start and end. */
+const KIND = 0, COORDINATE_AT = 1, SPAN_START = 2, SPAN_END = 3;
+const SEGMENT_WIDTH = 4;
+
+/**
+ * Pieces and segments as records in two Int32Arrays (a piece's or a segment's fields share a cache
+ * line: chaining visits pieces in shuffled order) and coordinates in a Float64Array.
+ */
+export class PieceStore {
+  /** Number of pieces. */
+  pieceCount = 0;
+  private segmentCount = 0;
+  private coordinateCount = 0;
+  private pieces: Int32Array = new Int32Array(PIECE_WIDTH * 1024);
+  private segments: Int32Array = new Int32Array(SEGMENT_WIDTH * 1024);
+  /** Coordinates of each segment, in `Segment` field order after `kind`. */
+  private coordinates: Float64Array = new Float64Array(8192);
+  private readonly handles = new Map<number, string>();
+  private readonly polylines = new Map<number, PolylineFixInfo>();
+  /** Entity types and layer names by id, each once. */
+  private readonly names: string[] = [];
+  private readonly nameIds = new Map<string, number>();
+
+  private getNameId(name: string): number {
+    let id = this.nameIds.get(name);
+    if (id === undefined) {
+      id = this.names.length;
+      this.names.push(name);
+      this.nameIds.set(name, id);
+    }
+    return id;
+  }
+
+  /** Reserves a segment of `kind` with its span and returns the index of its first coordinate. */
+  private addSegmentSlot(kind: number, spanStart: number, spanEnd: number): number {
+    const r = SEGMENT_WIDTH * this.segmentCount++;
+    this.segments = grownInt32(this.segments, r + SEGMENT_WIDTH);
+    const at = this.coordinateCount;
+    this.coordinateCount += COORDINATES[kind];
+    this.coordinates = grownFloat64(this.coordinates, this.coordinateCount);
+    const sg = this.segments;
+    sg[r + KIND] = kind;
+    sg[r + COORDINATE_AT] = at;
+    sg[r + SPAN_START] = spanStart;
+    sg[r + SPAN_END] = spanEnd;
+    return at;
+  }
+
+  /**
+   * Adds a segment of the piece being built: its image under `m` (exactly as `mapSegment` computes it),
+   * or the segment itself when `m` is null, with the given span.
+   */
+  addSegment(m: Affine | null, s: Segment, spanStart: number, spanEnd: number): void {
+    const kind = s.kind === 'line' ? LINE : s.kind === 'quad' ? QUAD : s.kind === 'cubic' ? CUBIC : ARC;
+    const at = this.addSegmentSlot(kind, spanStart, spanEnd);
+    const c = this.coordinates;
+    const put = (k: number, x: number, y: number) => {
+      c[at + k] = m ? m.a * x + m.c * y + m.e : x;
+      c[at + k + 1] = m ? m.b * x + m.d * y + m.f : y;
+    };
+    put(0, s.x0, s.y0);
+    put(2, s.x1, s.y1);
+    switch (s.kind) {
+      case 'line':
+        return;
+      case 'quad':
+        return put(4, s.x2, s.y2);
+      case 'cubic':
+        put(4, s.x2, s.y2);
+        return put(6, s.x3, s.y3);
+      case 'arc':
+        put(4, s.cx, s.cy);
+        c[at + 6] = m ? m.a * s.ux + m.c * s.uy : s.ux;
+        c[at + 7] = m ? m.b * s.ux + m.d * s.uy : s.uy;
+        c[at + 8] = m ? m.a * s.vx + m.c * s.vy : s.vx;
+        c[at + 9] = m ? m.b * s.vx + m.d * s.vy : s.vy;
+        c[at + 10] = s.theta0;
+        c[at + 11] = s.sweep;
+    }
+  }
+
+  /** Ends the piece whose segments were added since the last piece. */
+  addPiece(facts: PieceFacts): void {
+    const i = this.pieceCount++;
+    const r = PIECE_WIDTH * i;
+    this.pieces = grownInt32(this.pieces, r + PIECE_WIDTH);
+    const p = this.pieces;
+    p[r + SEGMENT_END] = this.segmentCount;
+    p[r + ORDER] = facts.order;
+    p[r + FLAGS] = (facts.closed ? CLOSED : 0) | (facts.unflaggedPolyline ? UNFLAGGED : 0)
+      | (getPointGroupsCode(facts.startEdit) << START_EDIT_SHIFT) | (getPointGroupsCode(facts.endEdit) << END_EDIT_SHIFT);
+    p[r + ELEMENT] = this.getNameId(facts.element);
+    p[r + LAYER] = this.getNameId(facts.layer);
+    p[r + SPANS] = facts.span.start; p[r + SPANS + 1] = facts.span.end;
+    p[r + SPANS + 2] = facts.startSpan.start; p[r + SPANS + 3] = facts.startSpan.end;
+    p[r + SPANS + 4] = facts.endSpan.start; p[r + SPANS + 5] = facts.endSpan.end;
+    if (facts.handle !== undefined) this.handles.set(i, facts.handle);
+    if (facts.polyline) this.polylines.set(i, facts.polyline);
+  }
+
+  private getFirstSegment(i: number): number {
+    return i === 0 ? 0 : this.pieces[PIECE_WIDTH * (i - 1) + SEGMENT_END];
+  }
+
+  private getSegmentEnd(i: number): number {
+    return this.pieces[PIECE_WIDTH * i + SEGMENT_END];
+  }
+
+  getSegmentCount(i: number): number {
+    return this.getSegmentEnd(i) - this.getFirstSegment(i);
+  }
+
+  isClosed(i: number): boolean {
+    return (this.pieces[PIECE_WIDTH * i + FLAGS] & CLOSED) !== 0;
+  }
+
+  isUnflaggedPolyline(i: number): boolean {
+    return (this.pieces[PIECE_WIDTH * i + FLAGS] & UNFLAGGED) !== 0;
+  }
+
+  getOrder(i: number): number {
+    return this.pieces[PIECE_WIDTH * i + ORDER];
+  }
+
+  /** The id of the piece's layer name (ids are small integers, equal for equal names). */
+  getLayerId(i: number): number {
+    return this.pieces[PIECE_WIDTH * i + LAYER];
+  }
+
+  getLayer(i: number): string {
+    return this.names[this.getLayerId(i)];
+  }
+
+  getElement(i: number): string {
+    return this.names[this.pieces[PIECE_WIDTH * i + ELEMENT]];
+  }
+
+  getHandle(i: number): string | undefined {
+    return this.handles.get(i);
+  }
+
+  /** The piece's span (which = 0), start span (1) or end span (2), as a new object. */
+  getSpan(i: number, which: 0 | 1 | 2): SourceSpan {
+    const r = PIECE_WIDTH * i + SPANS + 2 * which;
+    return { start: this.pieces[r], end: this.pieces[r + 1] };
+  }
+
+  getStartEdit(i: number): PointGroups | undefined {
+    return POINT_GROUPS[(this.pieces[PIECE_WIDTH * i + FLAGS] >> START_EDIT_SHIFT) & 3];
+  }
+
+  getEndEdit(i: number): PointGroups | undefined {
+    return POINT_GROUPS[(this.pieces[PIECE_WIDTH * i + FLAGS] >> END_EDIT_SHIFT) & 3];
+  }
+
+  getPolyline(i: number): PolylineFixInfo | undefined {
+    return this.polylines.get(i);
+  }
+
+  /** The piece's start (atEnd false) or end point, x then y, into `out` at `k`. */
+  getEndPoint(i: number, atEnd: boolean, out: Float64Array, k: number): void {
+    const r = SEGMENT_WIDTH * (atEnd ? this.getSegmentEnd(i) - 1 : this.getFirstSegment(i));
+    const at = this.segments[r + COORDINATE_AT] + (atEnd ? END_AT[this.segments[r + KIND]] : 0);
+    out[k] = this.coordinates[at];
+    out[k + 1] = this.coordinates[at + 1];
+  }
+
+  /**
+   * Appends the piece's segments to `out` as `Segment` objects, walked backwards when `reversed` (each
+   * segment reversed, an arc by θ0' = θ0 + sweep, sweep' = −sweep). A segment whose span is the piece's
+   * span gets `pieceSpan`; consecutive segments with equal spans share one object.
+   */
+  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[]): void {
+    const first = this.getFirstSegment(i), end = this.getSegmentEnd(i);
+    const c = this.coordinates, sg = this.segments;
+    let last: SourceSpan = pieceSpan;
+    for (let k = 0; k < end - first; k++) {
+      const r = SEGMENT_WIDTH * (reversed ? end - 1 - k : first + k);
+      const spanStart = sg[r + SPAN_START], spanEnd = sg[r + SPAN_END];
+      if (spanStart !== last.start || spanEnd !== last.end) {
+        last = spanStart === pieceSpan.start && spanEnd === pieceSpan.end ? pieceSpan : { start: spanStart, end: spanEnd };
+      }
+      const span = last;
+      const a = sg[r + COORDINATE_AT];
+      switch (sg[r + KIND]) {
+        case LINE:
+          out.push(reversed
+            ? { kind: 'line', x0: c[a + 2], y0: c[a + 3], x1: c[a], y1: c[a + 1], span }
+            : { kind: 'line', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], span });
+          break;
+        case QUAD:
+          out.push(reversed
+            ? { kind: 'quad', x0: c[a + 4], y0: c[a + 5], x1: c[a + 2], y1: c[a + 3], x2: c[a], y2: c[a + 1], span }
+            : { kind: 'quad', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], x2: c[a + 4], y2: c[a + 5], span });
+          break;
+        case CUBIC:
+          out.push(reversed
+            ? { kind: 'cubic', x0: c[a + 6], y0: c[a + 7], x1: c[a + 4], y1: c[a + 5], x2: c[a + 2], y2: c[a + 3], x3: c[a], y3: c[a + 1], span }
+            : { kind: 'cubic', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], x2: c[a + 4], y2: c[a + 5], x3: c[a + 6], y3: c[a + 7], span });
+          break;
+        default:
+          out.push(getArc(c, a, reversed, span));
+      }
+    }
+  }
+}
+
+function getArc(c: Float64Array, a: number, reversed: boolean, span: SourceSpan): Arc {
+  const theta0 = c[a + 10], sweep = c[a + 11];
+  return reversed
+    ? {
+      kind: 'arc', x0: c[a + 2], y0: c[a + 3], x1: c[a], y1: c[a + 1], cx: c[a + 4], cy: c[a + 5],
+      ux: c[a + 6], uy: c[a + 7], vx: c[a + 8], vy: c[a + 9], theta0: theta0 + sweep, sweep: -sweep, span,
+    }
+    : {
+      kind: 'arc', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], cx: c[a + 4], cy: c[a + 5],
+      ux: c[a + 6], uy: c[a + 7], vx: c[a + 8], vy: c[a + 9], theta0, sweep, span,
+    };
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { getGroupValueKind, GroupScanner } from './groups';
+import { getGroupValueKind, GroupScanner, parseDecimal } from './groups';
 
 describe('GroupScanner', () => {
   it('reads code and value lines with their offsets, LF and CRLF alike (REFERENCES.md §6.1)', () => {
@@ -32,5 +32,42 @@ describe('GroupScanner', () => {
     sc.next();
     expect(sc.number).toBeNaN();
     expect(sc.problems[0].span).toEqual({ start: 3, end: 6 });
+  });
+
+  it('converts every value exactly as Number does, whether parsed in place or not (ECMA-262 StringToNumber)', () => {
+    // Seeded decimals of every shape: signs, blanks, leading zeros, 1–17 significant digits, up to 24
+    // decimals, exponents, and text that is no number at all; each value line's number must be the
+    // double Number gives (−0 included), and NaN with a problem exactly where Number gives NaN.
+    let seed = 7;
+    const rand = (k: number) => Math.floor(((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31) * k);
+    const digits = (k: number) => Array.from({ length: k }, () => rand(10)).join('');
+    const values: string[] = ['0', '-0', '+0', '.5', '5.', '-.5', '.', '-', '+', '1e3', '1E-2', '0x1A', 'Infinity', '1_0', '--1', '1.2.3',
+      ' 12', '\t-3.25', '9007199254740991', '9007199254740993', '0.1', '0.30000000000000004', '123456789012345678901234', '1.7976931348623157e308'];
+    for (let k = 0; k < 3000; k++) {
+      const int = digits(rand(12)), frac = digits(rand(25));
+      values.push(`${['', '-', '+', ' ', ' -'][rand(5)]}${int}${rand(4) > 0 ? `.${frac}` : ''}${rand(20) === 0 ? `e${rand(40) - 20}` : ''}`);
+    }
+    const text = values.map((v) => `40\n${v}\n`).join('');
+    const sc = new GroupScanner(text);
+    const got: number[] = [];
+    while (sc.next()) got.push(sc.number);
+    const expected = values.map((v) => {
+      const n = v.trim() === '' ? Number.NaN : Number(v);
+      return Number.isFinite(n) ? n : Number.NaN;
+    });
+    expect(got).toHaveLength(values.length);
+    for (let k = 0; k < values.length; k++) expect(Object.is(got[k], expected[k]), `"${values[k]}": ${got[k]} vs ${expected[k]}`).toBe(true);
+    expect(sc.problems).toHaveLength(expected.filter(Number.isNaN).length);
+    // The fast path declines what it cannot decide exactly, so Number decides it.
+    expect([parseDecimal('1e3', 0, 3), parseDecimal('9007199254740993', 0, 16), parseDecimal('.', 0, 1)]).toEqual([Number.NaN, Number.NaN, Number.NaN]);
+    expect(parseDecimal('x-12.50', 1, 7)).toBe(-12.5);
+  });
+
+  it('reads names as String.prototype.trim does, one string per repeated name (ECMA-262 trim)', () => {
+    const names = ['LINE', ' LINE', 'LINE', '\u00a0ARC', 'ARC\u00a0', 'A B', '', '  ', 'ÉCROU', 'LINE'];
+    const sc = new GroupScanner(names.map((v) => `0\n${v}\n`).join(''));
+    const got: string[] = [];
+    while (sc.next()) got.push(sc.name);
+    expect(got).toEqual(names.map((v) => v.trim()));
   });
 });

@@ -54,9 +54,51 @@ const LF = 10;
 const CR = 13;
 const SPACE = 32;
 const TAB = 9;
+const MINUS = 45;
+const PLUS = 43;
+const POINT = 46;
+/** Slots of a scanner's name cache (a power of two). */
+const NAME_CACHE_SIZE = 256;
 
 function isBlank(c: number): boolean {
   return c === SPACE || c === TAB || c === CR;
+}
+
+/** Exact powers of ten (every one up to 10²² is a double). */
+const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
+
+/**
+ * The value of text [start, end) when it is a plain decimal, optional blanks and sign, digits, an
+ * optional point and digits, whose digits read as an integer below 2⁵³ and that has at most 22
+ * decimals; NaN for anything else (exponents, more digits, other characters), which the caller then
+ * converts with `Number`. Both numbers of m / 10^k are exact, so their IEEE quotient is the correctly
+ * rounded value of the decimal, the very double `Number` gives (ECMA-262 StringToNumber rounds
+ * correctly; Clinger's fast path): no string is sliced for the common value.
+ */
+export function parseDecimal(text: string, start: number, end: number): number {
+  let i = start;
+  while (i < end && (text.charCodeAt(i) === SPACE || text.charCodeAt(i) === TAB)) i++;
+  const sign = i < end ? text.charCodeAt(i) : 0;
+  if (sign === MINUS || sign === PLUS) i++;
+  let m = 0, digits = 0, decimals = 0;
+  for (; i < end; i++) {
+    const d = text.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) break;
+    m = m * 10 + d;
+    digits++;
+  }
+  if (i < end && text.charCodeAt(i) === POINT) {
+    for (i++; i < end; i++) {
+      const d = text.charCodeAt(i) - 48;
+      if (d < 0 || d > 9) break;
+      m = m * 10 + d;
+      digits++;
+      decimals++;
+    }
+  }
+  if (i !== end || digits === 0 || !(m < 2 ** 53) || decimals >= POWERS_OF_TEN.length) return Number.NaN;
+  const v = decimals === 0 ? m : m / POWERS_OF_TEN[decimals];
+  return sign === MINUS ? -v : v;
 }
 
 /** Parses a group-code line's text [start, end) as a non-negative integer; -1 when it is not one. */
@@ -129,10 +171,28 @@ export class GroupScanner {
     return this.text.slice(this.valueStart, this.valueEnd);
   }
 
-  /** The value with leading blanks trimmed too (names, keywords). */
+  /**
+   * The value with leading blanks trimmed too (names, keywords), as `value.trim()`. A name of printable
+   * ASCII ends comes from a small cache by the hash of its text: a million LINE keywords are one string.
+   */
   get name(): string {
-    return this.value.trim();
+    const text = this.text;
+    let start = this.valueStart;
+    const end = this.valueEnd;
+    while (start < end && (text.charCodeAt(start) === SPACE || text.charCodeAt(start) === TAB)) start++;
+    if (start === end) return '';
+    const first = text.charCodeAt(start), last = text.charCodeAt(end - 1);
+    if (first <= SPACE || first >= 0x7f || last <= SPACE || last >= 0x7f) return this.value.trim();
+    let h = 0x811c9dc5;
+    for (let i = start; i < end; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+    const slot = (h ^ (h >>> 16)) & (NAME_CACHE_SIZE - 1);
+    const cached = this.names[slot];
+    if (cached !== undefined && cached.length === end - start && text.startsWith(cached, start)) return cached;
+    return (this.names[slot] = text.slice(start, end));
   }
+
+  /** Recently read names by the hash of their text. */
+  private readonly names: (string | undefined)[] = new Array<string | undefined>(NAME_CACHE_SIZE).fill(undefined);
 
   /**
    * The value converted to a number, for group codes whose type is numeric (§6.2); NaN for string
@@ -204,6 +264,8 @@ export class GroupScanner {
   }
 
   private convert(integer: boolean): number {
+    const fast = parseDecimal(this.text, this.valueStart, this.valueEnd);
+    if (!Number.isNaN(fast) && (!integer || Number.isInteger(fast))) return fast;
     const raw = this.text.slice(this.valueStart, this.valueEnd);
     // Number('') is 0: an empty value (trailing blanks are already trimmed) is not a number.
     const v = this.valueEnd > this.valueStart ? Number(raw) : Number.NaN;

@@ -125,32 +125,57 @@ export class PieceStore {
    * or the segment itself when `m` is null, with the given span.
    */
   addSegment(m: Affine | null, s: Segment, spanStart: number, spanEnd: number): void {
-    const kind = s.kind === 'line' ? LINE : s.kind === 'quad' ? QUAD : s.kind === 'cubic' ? CUBIC : ARC;
-    const at = this.addSegmentSlot(kind, spanStart, spanEnd);
-    const c = this.coordinates;
-    const put = (k: number, x: number, y: number) => {
-      c[at + k] = m ? m.a * x + m.c * y + m.e : x;
-      c[at + k + 1] = m ? m.b * x + m.d * y + m.f : y;
-    };
-    put(0, s.x0, s.y0);
-    put(2, s.x1, s.y1);
     switch (s.kind) {
       case 'line':
-        return;
-      case 'quad':
-        return put(4, s.x2, s.y2);
-      case 'cubic':
-        put(4, s.x2, s.y2);
-        return put(6, s.x3, s.y3);
+        return this.addLine(m, s.x0, s.y0, s.x1, s.y1, spanStart, spanEnd);
       case 'arc':
-        put(4, s.cx, s.cy);
-        c[at + 6] = m ? m.a * s.ux + m.c * s.uy : s.ux;
-        c[at + 7] = m ? m.b * s.ux + m.d * s.uy : s.uy;
-        c[at + 8] = m ? m.a * s.vx + m.c * s.vy : s.vx;
-        c[at + 9] = m ? m.b * s.vx + m.d * s.vy : s.vy;
-        c[at + 10] = s.theta0;
-        c[at + 11] = s.sweep;
+        return this.addArc(m, s.x0, s.y0, s.x1, s.y1, s.cx, s.cy, s.ux, s.uy, s.vx, s.vy, s.theta0, s.sweep, spanStart, spanEnd);
+      case 'quad': {
+        const at = this.addSegmentSlot(QUAD, spanStart, spanEnd);
+        this.putPoint(m, at, s.x0, s.y0);
+        this.putPoint(m, at + 2, s.x1, s.y1);
+        return this.putPoint(m, at + 4, s.x2, s.y2);
+      }
+      case 'cubic': {
+        const at = this.addSegmentSlot(CUBIC, spanStart, spanEnd);
+        this.putPoint(m, at, s.x0, s.y0);
+        this.putPoint(m, at + 2, s.x1, s.y1);
+        this.putPoint(m, at + 4, s.x2, s.y2);
+        return this.putPoint(m, at + 6, s.x3, s.y3);
+      }
     }
+  }
+
+  /** A line segment from (x0, y0) to (x1, y1), mapped by `m` unless it is null (see `addSegment`). */
+  addLine(m: Affine | null, x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): void {
+    const at = this.addSegmentSlot(LINE, spanStart, spanEnd);
+    this.putPoint(m, at, x0, y0);
+    this.putPoint(m, at + 2, x1, y1);
+  }
+
+  /** An arc with the fields of `Arc`, mapped by `m` unless it is null (see `addSegment`). */
+  addArc(
+    m: Affine | null, x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
+    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,
+  ): void {
+    const at = this.addSegmentSlot(ARC, spanStart, spanEnd);
+    this.putPoint(m, at, x0, y0);
+    this.putPoint(m, at + 2, x1, y1);
+    this.putPoint(m, at + 4, cx, cy);
+    const c = this.coordinates;
+    c[at + 6] = m ? m.a * ux + m.c * uy : ux;
+    c[at + 7] = m ? m.b * ux + m.d * uy : uy;
+    c[at + 8] = m ? m.a * vx + m.c * vy : vx;
+    c[at + 9] = m ? m.b * vx + m.d * vy : vy;
+    c[at + 10] = theta0;
+    c[at + 11] = sweep;
+  }
+
+  /** Writes the image of point (x, y) under `m` (or the point, when `m` is null) at coordinate `at`. */
+  private putPoint(m: Affine | null, at: number, x: number, y: number): void {
+    const c = this.coordinates;
+    c[at] = m ? m.a * x + m.c * y + m.e : x;
+    c[at + 1] = m ? m.b * x + m.d * y + m.f : y;
   }
 
   /** Ends the piece whose segments were added since the last piece. */

@@ -26,6 +26,10 @@ export interface PieceNotes {
   readonly malformed: { span: SourceSpan; detail: string }[];
 }
 
+/** The point groups of a LINE's ends; no facts beyond the defaults. */
+const LINE_POINTS: Partial<PieceFacts> = { startEdit: 'first10', endEdit: 'first11' };
+const NO_FACTS: Partial<PieceFacts> = {};
+
 /** Nesting limit of inserts (a block inserting itself is reported before this is reached). */
 const MAX_INSERT_DEPTH = 32;
 /** Largest number of block instances expanded for one file: guards row × column arrays of huge counts. */
@@ -148,14 +152,24 @@ export class PieceBuilder {
     return { ...f, m: compose(f.m, ocs), editable: false };
   }
 
-  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<PieceFacts> = {}): void {
-    const inBlock = f.depth > 0;
+  /** The map a piece's segments go through: null for a top-level entity already in mm (kept as they are). */
+  private getMap(f: Frame): Affine | null {
     const m = f.m;
-    const identity = !inBlock && m.a === 1 && m.b === 0 && m.c === 0 && m.d === 1 && m.e === 0 && m.f === 0;
+    return f.depth === 0 && m.a === 1 && m.b === 0 && m.c === 0 && m.d === 1 && m.e === 0 && m.f === 0 ? null : m;
+  }
+
+  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<PieceFacts> = {}): void {
+    const m = this.getMap(f);
     for (const s of segments) {
-      const span = inBlock ? f.top.span : s.span;
-      this.store.addSegment(identity ? null : m, s, span.start, span.end);
+      const span = f.depth > 0 ? f.top.span : s.span;
+      this.store.addSegment(m, s, span.start, span.end);
     }
+    this.finishPiece(f, e, layer, closed, extra);
+  }
+
+  /** Ends the piece whose segments went to the store. */
+  private finishPiece(f: Frame, e: DxfEntity, layer: string, closed: boolean, extra: Partial<PieceFacts>): void {
+    const inBlock = f.depth > 0;
     this.store.addPiece({
       closed,
       order: f.top.order,
@@ -178,8 +192,9 @@ export class PieceBuilder {
         if (![e.x0, e.y0, e.x1, e.y1].every(Number.isFinite)) return this.malformed(f, e, 'LINE has a coordinate that is not a number');
         if (e.z0 !== e.z1) return this.outOfPlane(f, e, `its ends lie at different heights (z ${e.z0} and ${e.z1})`);
         // LINE points are WCS (§6.4): the extrusion does not move them.
-        return this.push(f, e, layer, [{ kind: 'line', x0: e.x0, y0: e.y0, x1: e.x1, y1: e.y1, span: e.span }], false,
-          { startEdit: 'first10', endEdit: 'first11' });
+        const span = f.depth > 0 ? f.top.span : e.span;
+        this.store.addLine(this.getMap(f), e.x0, e.y0, e.x1, e.y1, span.start, span.end);
+        return this.finishPiece(f, e, layer, false, LINE_POINTS);
       }
       case 'circle':
       case 'arc': {
@@ -195,12 +210,10 @@ export class PieceBuilder {
         if (sweepDeg <= 0) sweepDeg += 360;
         const [c0, s0] = getCosSinDeg(e.startDeg);
         const [c1, s1] = getCosSinDeg(e.endDeg);
-        const arc: Arc = {
-          kind: 'arc', x0: e.cx + e.r * c0, y0: e.cy + e.r * s0, x1: e.cx + e.r * c1, y1: e.cy + e.r * s1,
-          cx: e.cx, cy: e.cy, ux: e.r, uy: 0, vx: 0, vy: e.r,
-          theta0: (e.startDeg * Math.PI) / 180, sweep: (sweepDeg * Math.PI) / 180, span: e.span,
-        };
-        return this.push(g, e, layer, [arc], false);
+        const span = g.depth > 0 ? g.top.span : e.span;
+        this.store.addArc(this.getMap(g), e.cx + e.r * c0, e.cy + e.r * s0, e.cx + e.r * c1, e.cy + e.r * s1, e.cx, e.cy, e.r, 0, 0, e.r,
+          (e.startDeg * Math.PI) / 180, (sweepDeg * Math.PI) / 180, span.start, span.end);
+        return this.finishPiece(g, e, layer, false, NO_FACTS);
       }
       case 'ellipse': {
         if (![e.cx, e.cy, e.mx, e.my, e.ratio, e.t0, e.t1].every(Number.isFinite)) return this.malformed(f, e, 'ELLIPSE has a value that is not a number');

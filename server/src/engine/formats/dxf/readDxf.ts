@@ -264,19 +264,23 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
   // Drafts: a closed piece (its index) or a chain (−1 − its index); their order and start/end spans.
   const draftOf: number[] = [];
   const draftOrder: number[] = [];
-  const open: number[] = [];
+  // Open pieces, with their orders beside them: the chains visit them in shuffled order.
+  let openCount = 0;
+  const open = new Int32Array(n);
+  const openOrder = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     if (store.getSegmentCount(i) === 0) continue;
     if (store.isClosed(i)) {
       draftOf.push(i);
       draftOrder.push(store.getOrder(i));
     } else {
-      open.push(i);
+      openOrder[openCount] = store.getOrder(i);
+      open[openCount++] = i;
     }
   }
-  const ends = new Float64Array(4 * open.length);
-  const groups = new Int32Array(open.length);
-  for (let k = 0; k < open.length; k++) {
+  const ends = new Float64Array(4 * openCount);
+  const groups = new Int32Array(openCount);
+  for (let k = 0; k < openCount; k++) {
     store.getEndPoint(open[k], false, ends, 4 * k);
     store.getEndPoint(open[k], true, ends, 4 * k + 2);
     groups[k] = store.getLayerId(open[k]);
@@ -302,8 +306,8 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     const from = chained.starts[k], to = chained.starts[k + 1];
     const first = open[links[from] >> 1], last = open[links[to - 1] >> 1];
     const firstReversed = (links[from] & 1) === 1, lastReversed = (links[to - 1] & 1) === 1;
-    let order = store.getOrder(first);
-    for (let l = from + 1; l < to; l++) order = Math.min(order, store.getOrder(open[links[l] >> 1]));
+    let order = openOrder[links[from] >> 1];
+    for (let l = from + 1; l < to; l++) order = Math.min(order, openOrder[links[l] >> 1]);
     draftOf.push(-1 - k);
     draftOrder.push(order);
     const single = to - from === 1 && store.isUnflaggedPolyline(first);

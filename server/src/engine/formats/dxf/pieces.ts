@@ -26,6 +26,14 @@ export interface PieceNotes {
   readonly malformed: { span: SourceSpan; detail: string }[];
 }
 
+/** The blocks a top-level entity is inside of: none. */
+const NO_BLOCKS: readonly string[] = [];
+
+/** True when all four numbers are finite (no array per test, on the path every LINE and ARC takes). */
+function areFinite(a: number, b: number, c: number, d: number): boolean {
+  return Number.isFinite(a) && Number.isFinite(b) && Number.isFinite(c) && Number.isFinite(d);
+}
+
 /** The point groups of a LINE's ends; no facts beyond the defaults. */
 const LINE_POINTS: Partial<PieceFacts> = { startEdit: 'first10', endEdit: 'first11' };
 const NO_FACTS: Partial<PieceFacts> = {};
@@ -104,7 +112,7 @@ export class PieceBuilder {
       top: { span: e.span, order, type: e.type, handle: e.handle },
       editable: true,
       depth: 0,
-      blocks: [],
+      blocks: NO_BLOCKS,
     });
   }
 
@@ -189,7 +197,7 @@ export class PieceBuilder {
   private addEntity(e: DxfEntity, layer: string, f: Frame): void {
     switch (e.kind) {
       case 'line': {
-        if (![e.x0, e.y0, e.x1, e.y1].every(Number.isFinite)) return this.malformed(f, e, 'LINE has a coordinate that is not a number');
+        if (!areFinite(e.x0, e.y0, e.x1, e.y1)) return this.malformed(f, e, 'LINE has a coordinate that is not a number');
         if (e.z0 !== e.z1) return this.outOfPlane(f, e, `its ends lie at different heights (z ${e.z0} and ${e.z1})`);
         // LINE points are WCS (§6.4): the extrusion does not move them.
         const span = f.depth > 0 ? f.top.span : e.span;
@@ -198,7 +206,7 @@ export class PieceBuilder {
       }
       case 'circle':
       case 'arc': {
-        if (![e.cx, e.cy, e.r].every(Number.isFinite) || (e.kind === 'arc' && ![e.startDeg, e.endDeg].every(Number.isFinite))) {
+        if (!areFinite(e.cx, e.cy, e.r, 0) || (e.kind === 'arc' && !areFinite(e.startDeg, e.endDeg, 0, 0))) {
           return this.malformed(f, e, `${e.type} has a value that is not a number`);
         }
         if (!(e.r > 0)) return this.malformed(f, e, `${e.type} radius ${e.r} is not positive`);

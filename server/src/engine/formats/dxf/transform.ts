@@ -69,6 +69,8 @@ export function getMaxStretch(m: Affine): number {
  * ±Z (the entity leaves the drawing plane) or has zero length.
  */
 export function getOcsMap(nx: number, ny: number, nz: number): Affine | null {
+  // The default extrusion (0, 0, 1), and any positive multiple, is the identity (the steps below agree).
+  if (nx === 0 && ny === 0 && nz > 0 && nz < Infinity) return IDENTITY;
   const len = Math.hypot(nx, ny, nz);
   if (!(len > 0) || !Number.isFinite(len)) return null;
   const x = nx / len, y = ny / len, z = nz / len;

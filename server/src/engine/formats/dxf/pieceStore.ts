@@ -121,8 +121,10 @@ export class PieceStore {
   }
 
   /**
-   * Adds a segment of the piece being built: its image under `m` (exactly as `mapSegment` computes it),
-   * or the segment itself when `m` is null, with the given span.
+   * Adds a segment of the piece being built, with the given span: the segment itself when `m` is null,
+   * else its exact image under `m` (an affine image of a Bézier is the Bézier of the mapped control
+   * points; of an `Arc`, the arc with mapped ends and centre, conjugate semi-diameters mapped by the
+   * linear part, the same angles — types.ts).
    */
   addSegment(m: Affine | null, s: Segment, spanStart: number, spanEnd: number): void {
     switch (s.kind) {
@@ -146,14 +148,14 @@ export class PieceStore {
     }
   }
 
-  /** A line segment from (x0, y0) to (x1, y1), mapped by `m` unless it is null (see `addSegment`). */
+  /** A line segment from (x0, y0) to (x1, y1), mapped by `m` unless it is null (as in `addSegment`). */
   addLine(m: Affine | null, x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): void {
     const at = this.addSegmentSlot(LINE, spanStart, spanEnd);
     this.putPoint(m, at, x0, y0);
     this.putPoint(m, at + 2, x1, y1);
   }
 
-  /** An arc with the fields of `Arc`, mapped by `m` unless it is null (see `addSegment`). */
+  /** An arc with the fields of `Arc`, mapped by `m` unless it is null (as in `addSegment`). */
   addArc(
     m: Affine | null, x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
     ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,

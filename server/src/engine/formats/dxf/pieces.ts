@@ -1,6 +1,7 @@
 /**
  * DXF entities to pieces of outline in WCS millimetres: each piece is the segments of one entity
- * (or of one entity of one block instance), with the source positions its findings and fixes need.
+ * (or of one entity of one block instance), with the source positions its findings and fixes need,
+ * written to a flat piece store (pieceStore.ts).
  * Formulas: REFERENCES.md §6.4 (entities, INSERT mapping), §6.5 (OCS), §6.7 (bulges).
  */
 import { SPLINE_FIT_TOLERANCE_MM } from '../../geometry/tolerances';

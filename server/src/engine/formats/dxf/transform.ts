@@ -1,11 +1,9 @@
 /**
  * 2D affine maps for DXF geometry: object coordinate systems (OCS → WCS by the arbitrary axis
- * algorithm) and block inserts, applied exactly to every segment kind (an affine image of a Bézier is
- * the Bézier of the mapped control points; of an `Arc`, the arc with mapped centre and mapped
- * conjugate semi-diameters — types.ts).
+ * algorithm) and block inserts. The piece store applies them exactly to every segment kind
+ * (pieceStore.ts, `addSegment`).
  */
 import { PLANE_NORMAL_TOLERANCE } from '../../geometry/tolerances';
-import type { Segment, SourceSpan } from '../../types';
 
 /** x' = a·x + c·y + e, y' = b·x + d·y + f. */
 export interface Affine {
@@ -87,33 +85,4 @@ export function getOcsMap(nx: number, ny: number, nz: number): Affine | null {
 
 export function mapPoint(m: Affine, x: number, y: number): [number, number] {
   return [m.a * x + m.c * y + m.e, m.b * x + m.d * y + m.f];
-}
-
-/** The image of a segment under an affine map, with the given span. */
-export function mapSegment(m: Affine, s: Segment, span: SourceSpan = s.span): Segment {
-  const px = (x: number, y: number) => m.a * x + m.c * y + m.e;
-  const py = (x: number, y: number) => m.b * x + m.d * y + m.f;
-  switch (s.kind) {
-    case 'line':
-      return { kind: 'line', x0: px(s.x0, s.y0), y0: py(s.x0, s.y0), x1: px(s.x1, s.y1), y1: py(s.x1, s.y1), span };
-    case 'quad':
-      return {
-        kind: 'quad', x0: px(s.x0, s.y0), y0: py(s.x0, s.y0), x1: px(s.x1, s.y1), y1: py(s.x1, s.y1),
-        x2: px(s.x2, s.y2), y2: py(s.x2, s.y2), span,
-      };
-    case 'cubic':
-      return {
-        kind: 'cubic', x0: px(s.x0, s.y0), y0: py(s.x0, s.y0), x1: px(s.x1, s.y1), y1: py(s.x1, s.y1),
-        x2: px(s.x2, s.y2), y2: py(s.x2, s.y2), x3: px(s.x3, s.y3), y3: py(s.x3, s.y3), span,
-      };
-    case 'arc':
-      return {
-        kind: 'arc',
-        x0: px(s.x0, s.y0), y0: py(s.x0, s.y0), x1: px(s.x1, s.y1), y1: py(s.x1, s.y1),
-        cx: px(s.cx, s.cy), cy: py(s.cx, s.cy),
-        ux: m.a * s.ux + m.c * s.uy, uy: m.b * s.ux + m.d * s.uy,
-        vx: m.a * s.vx + m.c * s.vy, vy: m.b * s.vx + m.d * s.vy,
-        theta0: s.theta0, sweep: s.sweep, span,
-      };
-  }
 }

@@ -4,8 +4,9 @@
  * Steps: binary sentinel test (§6.6) → group scan and entity records (groups.ts, entities.ts), each
  * top-level entity passed on as soon as it is read → units from $INSUNITS (units.ts) → exact duplicates
  * set aside → entities on hidden or ignored layers skipped, the rest to pieces through OCS and block
- * inserts (pieces.ts) → loose open pieces chained end to end per layer (model/chain.ts) → contours,
- * with the close fixes that edit only the value lines they must.
+ * inserts (pieces.ts; flat records in pieceStore.ts) → loose open pieces chained end to end per layer
+ * (model/chain.ts) → contours, whose `Segment` objects are made only now, with the close fixes that
+ * edit only the value lines they must.
  */
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';

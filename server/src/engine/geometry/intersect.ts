@@ -3,9 +3,10 @@
  * contours, double cuts).
  *
  * Broad phase: every segment is cut into x/y-monotone pieces (intersectPieces.ts) whose end-point
- * boxes go into a flatbush R-tree; only pairs whose boxes meet reach the narrow phase, so the cost
- * is ~ n log n + k for n pieces and k candidate pairs. [src: REFERENCES.md §4.8; Bentley & Ottmann
- * 1979 for the n log n + k target; flatbush README for the packed Hilbert R-tree]
+ * boxes are paired by one join of a packed box tree with itself (piecePairs.ts); only pairs whose
+ * boxes meet reach the narrow phase, in order of their piece indices, so the cost is ~ n log n + k
+ * for n pieces and k candidate pairs. [src: REFERENCES.md §4.8; Bentley & Ottmann 1979 for the
+ * n log n + k target]
  * Narrow phase by pair kind:
  * - line–line: decided exactly with orient2d (robust-predicates; its sign is flipped relative to
  *   Shewchuk's C code, REFERENCES.md §7.2, so `ccw` below negates it); the point is computed after,
@@ -24,7 +25,6 @@
  * outgoing direction; the passes cross when the second pass's two directions lie on different sides
  * of the first pass (decided with orient2d on direction probes). [common practice, no source]
  */
-import Flatbush from 'flatbush';
 import { orient2d } from 'robust-predicates';
 import type { Arc, Contour, Cubic, Quad, Segment, SourceSpan } from '../types';
 import {
@@ -33,6 +33,7 @@ import {
   type PieceChain, type Pieces,
 } from './intersectPieces';
 import { getBezierPowerCoefficients, getPolynomialRoots } from './intersectRoots';
+import { findPiecePairs } from './piecePairs';
 import { getSegmentLength } from './length';
 
 /** Relative geometric tolerance: "same point" is 1e-9 of the outline's bounding-box diagonal.
@@ -47,6 +48,9 @@ export const MAX_SUBDIVISION_PAIRS = 4096;
 
 /** Newton steps when polishing a subdivision hit; quadratic convergence needs ~3 from a 1e-9 box. */
 const MAX_NEWTON_STEPS = 8;
+
+/** Candidate pairs examined between two polls of `isCancelled` (a curved pair may take 4096 box pairs). */
+const NARROW_POLL_EVERY = 1024;
 
 /** A place on a contour: segment index (−1 = implicit closing line) and parameter in it. */
 export interface ContourPlace {
@@ -97,7 +101,7 @@ export interface IntersectOptions {
   readonly acrossContours?: boolean;
   /** Also look within each contour (default true). */
   readonly withinContours?: boolean;
-  /** Polled every 4096 pieces; when it returns true the search stops early. */
+  /** Polled during the search (piecePairs.ts, then every NARROW_POLL_EVERY candidate pairs); when it returns true the search stops early. */
   readonly isCancelled?: () => boolean;
 }
 
@@ -656,14 +660,27 @@ function mergeOverlaps(P: Pieces, contours: readonly Contour[], raw: RawOverlap[
 }
 
 /**
- * Line piece `a` ends exactly where line piece `b` starts and b's end is off a's line: two lines
- * through their common joint meet nowhere else, and the joint itself is no intersection, so the
- * narrow phase would find only that point and drop it (exact: orient2d).
+ * Line piece `a` ends exactly where line piece `b` starts and b does not double back over a: two
+ * lines through their common joint meet nowhere else, and the joint itself is no intersection, so
+ * the narrow phase would find only that point and drop it. Exact: orient2d, and for collinear
+ * pieces coordinate comparisons along a's dominant axis (as collinearLines).
  */
 function linesMeetOnlyAtJoint(buf: Float64Array, a: number, b: number): boolean {
   const o = a * STRIDE, q = b * STRIDE;
-  return buf[o + 6] === buf[q + 4] && buf[o + 7] === buf[q + 5]
-    && ccw(buf[o + 4]!, buf[o + 5]!, buf[o + 6]!, buf[o + 7]!, buf[q + 6]!, buf[q + 7]!) !== 0;
+  const px = buf[o + 4]!, py = buf[o + 5]!, jx = buf[o + 6]!, jy = buf[o + 7]!, sx = buf[q + 6]!, sy = buf[q + 7]!;
+  if (jx !== buf[q + 4] || jy !== buf[q + 5] || (px === jx && py === jy)) return false;
+  if (ccw(px, py, jx, jy, sx, sy) !== 0) return true;
+  return Math.abs(jx - px) >= Math.abs(jy - py) ? (px < jx ? jx < sx : sx < jx) : (py < jy ? jy < sy : sy < jy);
+}
+
+/** Monotone neighbours whose boxes meet in a zero-area region can share only their common end. */
+function boxesOverlapWithArea(buf: Float64Array, i: number, j: number): boolean {
+  const o = i * STRIDE, q = j * STRIDE;
+  const w = Math.min(Math.max(buf[o + 4]!, buf[o + 6]!), Math.max(buf[q + 4]!, buf[q + 6]!))
+    - Math.max(Math.min(buf[o + 4]!, buf[o + 6]!), Math.min(buf[q + 4]!, buf[q + 6]!));
+  const h = Math.min(Math.max(buf[o + 5]!, buf[o + 7]!), Math.max(buf[q + 5]!, buf[q + 7]!))
+    - Math.max(Math.min(buf[o + 5]!, buf[o + 7]!), Math.min(buf[q + 5]!, buf[q + 7]!));
+  return w > 0 && h > 0;
 }
 
 /** Bounding-box diagonal of all contours' pieces, the size that `eps` is relative to. */
@@ -687,46 +704,23 @@ export function findIntersections(contours: readonly Contour[], options: Interse
   const col = new Collector(P, eps);
   const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps };
   if (P.count < 2) return result;
-  const index = new Flatbush(P.count);
   const buf = P.buf;
-  for (let i = 0; i < P.count; i++) {
-    const o = i * STRIDE;
-    const x0 = buf[o + 4]!, y0 = buf[o + 5]!, x1 = buf[o + 6]!, y1 = buf[o + 7]!;
-    index.add(Math.min(x0, x1) - eps, Math.min(y0, y1) - eps, Math.max(x0, x1) + eps, Math.max(y0, y1) + eps);
-  }
-  index.finish();
-  // A piece's box is the box of its end points (monotone pieces): read from buf, not copied.
-  const minX = (i: number) => Math.min(buf[i * STRIDE + 4]!, buf[i * STRIDE + 6]!);
-  const minY = (i: number) => Math.min(buf[i * STRIDE + 5]!, buf[i * STRIDE + 7]!);
-  const maxX = (i: number) => Math.max(buf[i * STRIDE + 4]!, buf[i * STRIDE + 6]!);
-  const maxY = (i: number) => Math.max(buf[i * STRIDE + 5]!, buf[i * STRIDE + 7]!);
-  let current = 0;
-  const filter = (j: number): boolean => {
-    const i = current;
-    if (j <= i) return false;
+  const keep = (i: number, j: number): boolean => {
     const ci = P.contourOf[i]!, cj = P.contourOf[j]!;
     if (ci === cj ? !within : !across) return false;
-    if (ci === cj) {
-      const ch = P.chains[ci]!;
-      const adjacent = j === i + 1 || (ch.cyclic && i === ch.first && j === ch.first + ch.count - 1 && ch.count > 2);
-      if (adjacent) {
-        if (buf[i * STRIDE] === KIND_LINE && buf[j * STRIDE] === KIND_LINE) {
-          if (j === i + 1 ? linesMeetOnlyAtJoint(buf, i, j) : linesMeetOnlyAtJoint(buf, j, i)) return false;
-        } else {
-          // Monotone neighbours whose boxes meet in a zero-area region can share only their common end.
-          const w = Math.min(maxX(i), maxX(j)) - Math.max(minX(i), minX(j));
-          const h = Math.min(maxY(i), maxY(j)) - Math.max(minY(i), minY(j));
-          if (!(w > 0 && h > 0)) return false;
-        }
-      }
+    if (ci !== cj) return true;
+    const ch = P.chains[ci]!;
+    const adjacent = j === i + 1 || (ch.cyclic && i === ch.first && j === ch.first + ch.count - 1 && ch.count > 2);
+    if (!adjacent) return true;
+    if (buf[i * STRIDE] === KIND_LINE && buf[j * STRIDE] === KIND_LINE) {
+      return !(j === i + 1 ? linesMeetOnlyAtJoint(buf, i, j) : linesMeetOnlyAtJoint(buf, j, i));
     }
-    narrow(col, i, j);
-    return false;
+    return boxesOverlapWithArea(buf, i, j);
   };
-  for (let i = 0; i < P.count; i++) {
-    if ((i & 4095) === 4095 && options.isCancelled?.()) break;
-    current = i;
-    index.search(minX(i) - eps, minY(i) - eps, maxX(i) + eps, maxY(i) + eps, filter);
+  const pairs = findPiecePairs(P, eps, keep, options.isCancelled);
+  for (let p = 0; 2 * p < pairs.length; p++) {
+    if (p % NARROW_POLL_EVERY === NARROW_POLL_EVERY - 1 && options.isCancelled?.()) break;
+    narrow(col, pairs[2 * p]!, pairs[2 * p + 1]!);
   }
 
   // Overlap coverage, to drop the touches found at the ends of overlapping runs.

@@ -1,0 +1,88 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { findPiecePairs, sortByCode } from './piecePairs';
+import { buildPieces, STRIDE, type Pieces } from './intersectPieces';
+import { contourFromSegments, line, polygonSegments } from '../../../../test/support/shapes';
+import type { Contour } from '../types';
+
+/** Brute-force reference: every pair i < j whose end-point boxes, grown by pad, meet (closed boxes). */
+function bruteForcePairs(P: Pieces, pad: number, keep: (i: number, j: number) => boolean = () => true): number[] {
+  const b = P.buf;
+  const box = (i: number) => {
+    const o = i * STRIDE;
+    return [Math.min(b[o + 4]!, b[o + 6]!) - pad, Math.min(b[o + 5]!, b[o + 7]!) - pad, Math.max(b[o + 4]!, b[o + 6]!) + pad, Math.max(b[o + 5]!, b[o + 7]!) + pad];
+  };
+  const out: number[] = [];
+  for (let i = 0; i < P.count; i++) {
+    const p = box(i);
+    for (let j = i + 1; j < P.count; j++) {
+      const q = box(j);
+      if (p[0]! <= q[2]! && q[0]! <= p[2]! && p[1]! <= q[3]! && q[1]! <= p[3]! && keep(i, j)) out.push(i, j);
+    }
+  }
+  return out;
+}
+
+/** Open polylines on a small integer grid: boxes that touch at an edge or a corner are common. */
+const gridPolylines = fc.array(
+  fc.array(fc.tuple(fc.integer({ min: 0, max: 12 }), fc.integer({ min: 0, max: 12 })), { minLength: 2, maxLength: 40 }),
+  { minLength: 1, maxLength: 8 },
+).map((lines) => lines.map((pts): Contour => contourFromSegments(polygonSegments(pts, false), false)));
+
+describe('findPiecePairs against a brute-force reference (all pairs, closed-box test)', () => {
+  it('finds exactly the meeting pairs, sorted, on random grid polylines with touching boxes, pad 0 and 0.5 (seed 31)', () => {
+    fc.assert(fc.property(gridPolylines, fc.constantFrom(0, 0.5), (contours, pad) => {
+      const P = buildPieces(contours, 0);
+      expect(Array.from(findPiecePairs(P, pad, () => true))).toEqual(bruteForcePairs(P, pad));
+    }), { seed: 31, numRuns: 300 });
+  });
+
+  it('agrees on 3000 pieces: a long zigzag contour over a grid of 500 small squares (seed 5 LCG)', () => {
+    let s = 5;
+    const rnd = () => (s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const contours: Contour[] = [];
+    for (let k = 0; k < 500; k++) {
+      const x = (k % 25) * 4, y = Math.floor(k / 25) * 4;
+      contours.push(contourFromSegments(polygonSegments([[x, y], [x + 2, y], [x + 2, y + 2], [x, y + 2]], false), true));
+    }
+    const zig: [number, number][] = [];
+    for (let k = 0; k < 1000; k++) zig.push([rnd() * 100, rnd() * 80]);
+    contours.push(contourFromSegments(polygonSegments(zig, false), false));
+    const P = buildPieces(contours, 0);
+    expect(P.count).toBe(2999);
+    const keep = (i: number, j: number) => (i + j) % 3 !== 0;
+    const got = findPiecePairs(P, 1e-9, keep);
+    expect(got.length).toBeGreaterThan(3000);
+    expect(Array.from(got)).toEqual(bruteForcePairs(P, 1e-9, keep));
+  });
+
+  it('handles no pieces, one piece and pieces that are all the same point box', () => {
+    expect(findPiecePairs(buildPieces([], 0), 0, () => true)).toEqual(new Int32Array(0));
+    expect(findPiecePairs(buildPieces([contourFromSegments([line(0, 0, 1, 1)], false)], 0), 0, () => true)).toEqual(new Int32Array(0));
+    const same = buildPieces(Array.from({ length: 40 }, () => contourFromSegments([line(0, 0, 1, 0)], false)), 0);
+    expect(Array.from(findPiecePairs(same, 0, () => true))).toEqual(bruteForcePairs(same, 0));
+  });
+
+  it('stops when cancelled and returns only meeting pairs found so far', () => {
+    const contours = Array.from({ length: 6000 }, (_, k) => contourFromSegments([line(k, 0, k + 1, 0)], false));
+    const P = buildPieces(contours, 0);
+    let polls = 0;
+    const got = findPiecePairs(P, 0, () => true, () => ++polls >= 1);
+    expect(polls).toBe(1);
+    expect(got.length / 2).toBeLessThan(P.count - 1);
+    const all = new Set<string>();
+    const ref = bruteForcePairs(P, 0);
+    for (let k = 0; k < ref.length; k += 2) all.add(`${ref[k]},${ref[k + 1]}`);
+    for (let k = 0; k < got.length; k += 2) expect(all.has(`${got[k]},${got[k + 1]}`)).toBe(true);
+  });
+});
+
+describe('sortByCode', () => {
+  it('orders like a stable Array.prototype.sort by the unsigned codes (ES2019 requires a stable sort)', () => {
+    let s = 99;
+    const codes = new Uint32Array(5000);
+    for (let k = 0; k < codes.length; k++) codes[k] = (s = (s * 1103515245 + 12345) % 2 ** 31) % 7 === 0 ? 0xffffffff : (s * 2) >>> (k % 20);
+    const ref = Array.from(codes.keys()).sort((a, b) => codes[a]! - codes[b]!);
+    expect(Array.from(sortByCode(codes))).toEqual(ref);
+  });
+});

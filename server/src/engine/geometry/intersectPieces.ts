@@ -14,7 +14,7 @@
  *   quad: o+8, o+9 control point; cubic: o+8..o+11 the two control points;
  *   arc: o+8 cx, o+9 cy, o+10 ux, o+11 uy, o+12 vx, o+13 vy, o+14 θ at start, o+15 θ at end.
  */
-import type { Contour, Segment } from '../types';
+import type { Contour, Cubic, Quad, Segment } from '../types';
 import { addQuadraticRootsInUnitInterval } from './intersectRoots';
 
 export const STRIDE = 16;
@@ -44,10 +44,15 @@ export interface Pieces {
   readonly minKeptExtent: number;
 }
 
-/** The piece buffer, sized once: buildPieces counts the pieces before it writes them. */
+/**
+ * The piece buffer, written in one pass over the segments so that each segment's numbers are read
+ * once, while they are in cache. It starts with room for a piece per segment and per closing line
+ * plus half as many again for cuts, and grows by half when a drawing needs more; the untouched tail
+ * of a fresh zeroed buffer costs address space, not memory (its pages are never touched).
+ */
 class PieceWriter {
-  readonly buf: Float64Array;
-  readonly contourOf: Int32Array;
+  buf: Float64Array;
+  contourOf: Int32Array;
   count = 0;
 
   constructor(capacity: number) {
@@ -56,18 +61,32 @@ class PieceWriter {
   }
 
   next(contour: number): number {
+    if (this.count === this.contourOf.length) this.grow();
     this.contourOf[this.count] = contour;
     return this.count++ * STRIDE;
   }
+
+  private grow(): void {
+    const capacity = Math.ceil(1.5 * this.contourOf.length);
+    const buf = new Float64Array(STRIDE * capacity);
+    buf.set(this.buf);
+    this.buf = buf;
+    const contourOf = new Int32Array(capacity);
+    contourOf.set(this.contourOf);
+    this.contourOf = contourOf;
+  }
 }
 
-/** Parameters in (0, 1) where c0 + c1·t + c2·t² = 0 (the derivative of one Bézier coordinate). */
-function addDerivativeRoots(ts: number[], c0: number, c1: number, c2: number): void {
+/** Coefficients c0, c1, c2 of one coordinate's derivative, for addDerivativeRoots (reused). */
+const DERIVATIVE = new Float64Array(3);
+
+/** Parameters in (0, 1) where c0 + c1·t + c2·t² = 0 for the coefficients in DERIVATIVE. */
+function addDerivativeRoots(ts: number[]): void {
   const from = ts.length;
-  addQuadraticRootsInUnitInterval(ts, c0, c1, c2);
+  addQuadraticRootsInUnitInterval(ts, DERIVATIVE);
   let n = from;
   for (let k = from; k < ts.length; k++) if (ts[k]! > 0 && ts[k]! < 1) ts[n++] = ts[k]!;
-  ts.length = n;
+  if (n < ts.length) ts.length = n;
 }
 
 /**
@@ -83,50 +102,7 @@ function sortSplits(ts: number[], from: number): void {
   }
   let n = Math.min(from + 1, ts.length);
   for (let k = from + 1; k < ts.length; k++) if (ts[k]! - ts[n - 1]! > 1e-12) ts[n++] = ts[k]!;
-  ts.length = n;
-}
-
-/** Splits a cubic (8 numbers) at t into two; returns [left, right]. de Casteljau. */
-export function splitCubic(p: ArrayLike<number>, t: number): [number[], number[]] {
-  const x0 = p[0]!, y0 = p[1]!, x1 = p[2]!, y1 = p[3]!, x2 = p[4]!, y2 = p[5]!, x3 = p[6]!, y3 = p[7]!;
-  const ax = x0 + (x1 - x0) * t, ay = y0 + (y1 - y0) * t;
-  const bx = x1 + (x2 - x1) * t, by = y1 + (y2 - y1) * t;
-  const cx = x2 + (x3 - x2) * t, cy = y2 + (y3 - y2) * t;
-  const dx = ax + (bx - ax) * t, dy = ay + (by - ay) * t;
-  const ex = bx + (cx - bx) * t, ey = by + (cy - by) * t;
-  const fx = dx + (ex - dx) * t, fy = dy + (ey - dy) * t;
-  return [
-    [x0, y0, ax, ay, dx, dy, fx, fy],
-    [fx, fy, ex, ey, cx, cy, x3, y3],
-  ];
-}
-
-/** Splits a quadratic (6 numbers) at t. */
-export function splitQuad(p: ArrayLike<number>, t: number): [number[], number[]] {
-  const x0 = p[0]!, y0 = p[1]!, x1 = p[2]!, y1 = p[3]!, x2 = p[4]!, y2 = p[5]!;
-  const ax = x0 + (x1 - x0) * t, ay = y0 + (y1 - y0) * t;
-  const bx = x1 + (x2 - x1) * t, by = y1 + (y2 - y1) * t;
-  const cx = ax + (bx - ax) * t, cy = ay + (by - ay) * t;
-  return [
-    [x0, y0, ax, ay, cx, cy],
-    [cx, cy, bx, by, x2, y2],
-  ];
-}
-
-/** Writes a piece from control points in `pts` (6 or 8 numbers). */
-function pushBezier(w: PieceWriter, contour: number, seg: number, kind: number, pts: ArrayLike<number>, t0: number, t1: number): void {
-  const o = w.next(contour);
-  const b = w.buf;
-  b[o] = kind;
-  b[o + 1] = seg;
-  b[o + 2] = t0;
-  b[o + 3] = t1;
-  const n = pts.length;
-  b[o + 4] = pts[0]!;
-  b[o + 5] = pts[1]!;
-  b[o + 6] = pts[n - 2]!;
-  b[o + 7] = pts[n - 1]!;
-  for (let k = 2; k < n - 2; k++) b[o + 6 + k] = pts[k]!;
+  if (n < ts.length) ts.length = n;
 }
 
 /** Appends to `cuts` the parameters in (0, 1) where a Bézier stops being monotone, sorted. */
@@ -134,55 +110,104 @@ function addBezierCuts(cuts: number[], s: Segment & { kind: 'quad' | 'cubic' }):
   const from = cuts.length;
   if (s.kind === 'cubic') {
     // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t, per coordinate:
+    const d = DERIVATIVE;
     let a = s.x1 - s.x0, b = s.x2 - s.x1, c = s.x3 - s.x2;
-    addDerivativeRoots(cuts, a, 2 * (b - a), a - 2 * b + c);
+    d[0] = a; d[1] = 2 * (b - a); d[2] = a - 2 * b + c;
+    addDerivativeRoots(cuts);
     a = s.y1 - s.y0; b = s.y2 - s.y1; c = s.y3 - s.y2;
-    addDerivativeRoots(cuts, a, 2 * (b - a), a - 2 * b + c);
+    d[0] = a; d[1] = 2 * (b - a); d[2] = a - 2 * b + c;
+    addDerivativeRoots(cuts);
   } else {
-    addDerivativeRoots(cuts, s.x1 - s.x0, s.x0 - 2 * s.x1 + s.x2, 0);
-    addDerivativeRoots(cuts, s.y1 - s.y0, s.y0 - 2 * s.y1 + s.y2, 0);
+    const d = DERIVATIVE;
+    d[0] = s.x1 - s.x0; d[1] = s.x0 - 2 * s.x1 + s.x2; d[2] = 0;
+    addDerivativeRoots(cuts);
+    d[0] = s.y1 - s.y0; d[1] = s.y0 - 2 * s.y1 + s.y2; d[2] = 0;
+    addDerivativeRoots(cuts);
   }
   sortSplits(cuts, from);
 }
 
-/** Control points of the Bézier being cut (its remaining right part), reused across segments. */
-const CUBIC_REST = new Float64Array(8);
-const QUAD_REST = new Float64Array(6);
+/*
+ * The writers below keep their numbers in locals and write them straight into the buffer: passing
+ * doubles to a function that is not inlined boxes each one, which on a million segments is a
+ * collection's worth of garbage.
+ */
 
-/** Writes the pieces of a Bézier cut at cuts[from..to) (from addBezierCuts). */
-function addBezier(
-  w: PieceWriter, contour: number, seg: number, s: Segment & { kind: 'quad' | 'cubic' },
-  cuts: readonly number[], from: number, to: number,
-): void {
-  const cubic = s.kind === 'cubic';
-  const kind = cubic ? KIND_CUBIC : KIND_QUAD;
-  const r = cubic ? CUBIC_REST : QUAD_REST;
-  r[0] = s.x0; r[1] = s.y0; r[2] = s.x1; r[3] = s.y1; r[4] = s.x2; r[5] = s.y2;
-  if (s.kind === 'cubic') { r[6] = s.x3; r[7] = s.y3; }
+/**
+ * Writes the pieces of a cubic cut at cuts[from..to) (from addBezierCuts): each cut splits the
+ * remaining right part at its local parameter by de Casteljau's construction.
+ */
+function addCubic(w: PieceWriter, contour: number, seg: number, s: Cubic, cuts: readonly number[], from: number, to: number): void {
+  let x0 = s.x0, y0 = s.y0, x1 = s.x1, y1 = s.y1, x2 = s.x2, y2 = s.y2;
+  const x3 = s.x3, y3 = s.y3;
   let t0 = 0;
-  for (let k = from; k < to; k++) {
-    const t = cuts[k]!;
-    const local = (t - t0) / (1 - t0);
-    const [left, right] = cubic ? splitCubic(r, local) : splitQuad(r, local);
-    pushBezier(w, contour, seg, kind, left, t0, t);
-    r.set(right);
+  for (let k = from; ; k++) {
+    const last = k === to;
+    const t = last ? 1 : cuts[k]!;
+    // The piece is p0, a, d, f; the rest f, e, c, p3 (the whole remaining curve when last).
+    let ax = x1, ay = y1, dx = x2, dy = y2, fx = x3, fy = y3, ex = 0, ey = 0, cx = 0, cy = 0;
+    if (!last) {
+      const u = (t - t0) / (1 - t0);
+      ax = x0 + (x1 - x0) * u; ay = y0 + (y1 - y0) * u;
+      const bx = x1 + (x2 - x1) * u, by = y1 + (y2 - y1) * u;
+      cx = x2 + (x3 - x2) * u; cy = y2 + (y3 - y2) * u;
+      dx = ax + (bx - ax) * u; dy = ay + (by - ay) * u;
+      ex = bx + (cx - bx) * u; ey = by + (cy - by) * u;
+      fx = dx + (ex - dx) * u; fy = dy + (ey - dy) * u;
+    }
+    const o = w.next(contour);
+    const b = w.buf; // after next(), which may have grown it
+    b[o] = KIND_CUBIC; b[o + 1] = seg; b[o + 2] = t0; b[o + 3] = t;
+    b[o + 4] = x0; b[o + 5] = y0; b[o + 6] = fx; b[o + 7] = fy;
+    b[o + 8] = ax; b[o + 9] = ay; b[o + 10] = dx; b[o + 11] = dy;
+    if (last) return;
+    x0 = fx; y0 = fy; x1 = ex; y1 = ey; x2 = cx; y2 = cy;
     t0 = t;
   }
-  pushBezier(w, contour, seg, kind, r, t0, 1);
+}
+
+/** Writes the pieces of a quadratic cut at cuts[from..to), as addCubic. */
+function addQuad(w: PieceWriter, contour: number, seg: number, s: Quad, cuts: readonly number[], from: number, to: number): void {
+  let x0 = s.x0, y0 = s.y0, x1 = s.x1, y1 = s.y1;
+  const x2 = s.x2, y2 = s.y2;
+  let t0 = 0;
+  for (let k = from; ; k++) {
+    const last = k === to;
+    const t = last ? 1 : cuts[k]!;
+    // The piece is p0, a, c; the rest c, b, p2.
+    let ax = x1, ay = y1, cx = x2, cy = y2, bx = 0, by = 0;
+    if (!last) {
+      const u = (t - t0) / (1 - t0);
+      ax = x0 + (x1 - x0) * u; ay = y0 + (y1 - y0) * u;
+      bx = x1 + (x2 - x1) * u; by = y1 + (y2 - y1) * u;
+      cx = ax + (bx - ax) * u; cy = ay + (by - ay) * u;
+    }
+    const o = w.next(contour);
+    const b = w.buf; // after next(), which may have grown it
+    b[o] = KIND_QUAD; b[o + 1] = seg; b[o + 2] = t0; b[o + 3] = t;
+    b[o + 4] = x0; b[o + 5] = y0; b[o + 6] = cx; b[o + 7] = cy;
+    b[o + 8] = ax; b[o + 9] = ay;
+    if (last) return;
+    x0 = cx; y0 = cy; x1 = bx; y1 = by;
+    t0 = t;
+  }
 }
 
 /** Appends to `cuts` the sweep fractions in (0, 1) where an arc stops being monotone, sorted. */
 function addArcCuts(cuts: number[], s: Segment & { kind: 'arc' }): void {
-  const { ux, uy, vx, vy, theta0, sweep } = s;
   const from = cuts.length;
   // x′(θ) = −ux sin θ + vx cos θ = 0 at θ = atan2(vx, ux) + kπ; likewise for y.
-  for (const base of [Math.atan2(vx, ux), Math.atan2(vy, uy)]) {
-    for (let k = -4; k <= 4; k++) {
-      const f = (base + k * Math.PI - theta0) / sweep;
-      if (f > 1e-12 && f < 1 - 1e-12) cuts.push(f);
-    }
-  }
+  addAngleCuts(cuts, Math.atan2(s.vx, s.ux), s.theta0, s.sweep);
+  addAngleCuts(cuts, Math.atan2(s.vy, s.uy), s.theta0, s.sweep);
   sortSplits(cuts, from);
+}
+
+/** Appends the sweep fractions in (0, 1) of the angles base + kπ. */
+function addAngleCuts(cuts: number[], base: number, theta0: number, sweep: number): void {
+  for (let k = -4; k <= 4; k++) {
+    const f = (base + k * Math.PI - theta0) / sweep;
+    if (f > 1e-12 && f < 1 - 1e-12) cuts.push(f);
+  }
 }
 
 /** Writes the pieces of an arc cut at cuts[from..to) (from addArcCuts). */
@@ -247,43 +272,45 @@ function controlExtent(s: Segment): number {
  * contour whose last end point is not its start gets an implicit closing line (segment −1).
  */
 export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
-  // First pass: the cut parameters of every kept curve (in order, `cutEnds` marks where each
-  // curve's run ends), so the buffer is allocated once at its final size (one closing line per
-  // contour at most).
+  let segments = 0;
+  for (let ci = 0; ci < contours.length; ci++) segments += contours[ci]!.segments.length;
+  const w = new PieceWriter(segments + (segments >> 1) + contours.length + 16);
   const cuts: number[] = [];
-  const cutEnds: number[] = [];
-  let capacity = contours.length;
-  for (const c of contours) {
-    for (const s of c.segments) {
-      if (controlExtent(s) <= pointTol) continue;
-      capacity++;
-      if (s.kind === 'quad' || s.kind === 'cubic') addBezierCuts(cuts, s);
-      else if (s.kind === 'arc' && Math.abs(s.ux * s.vy - s.uy * s.vx) !== 0) addArcCuts(cuts, s);
-      else continue;
-      cutEnds.push(cuts.length);
-    }
-  }
-  const w = new PieceWriter(capacity + cuts.length);
   const chains: PieceChain[] = [];
   let minKept = Infinity;
-  let curve = 0;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (let ci = 0; ci < contours.length; ci++) {
     const c = contours[ci]!;
+    const segs = c.segments;
     const first = w.count;
     let lastX = c.startX, lastY = c.startY;
-    for (let si = 0; si < c.segments.length; si++) {
-      const s = c.segments[si]!;
+    for (let si = 0; si < segs.length; si++) {
+      const s = segs[si]!;
       const extent = controlExtent(s);
       if (extent <= pointTol) continue;
       minKept = Math.min(minKept, extent);
-      const from = curve > 0 ? cutEnds[curve - 1]! : 0;
+      const from = w.count;
+      const cut = cuts.length;
       switch (s.kind) {
         case 'line': addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1); break;
-        case 'quad': case 'cubic': addBezier(w, ci, si, s, cuts, from, cutEnds[curve++]!); break;
+        case 'quad': addBezierCuts(cuts, s); addQuad(w, ci, si, s, cuts, cut, cuts.length); break;
+        case 'cubic': addBezierCuts(cuts, s); addCubic(w, ci, si, s, cuts, cut, cuts.length); break;
         case 'arc':
-          if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1);
-          else addArc(w, ci, si, s, cuts, from, cutEnds[curve++]!);
+          if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) {
+            addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1);
+          } else {
+            addArcCuts(cuts, s);
+            addArc(w, ci, si, s, cuts, cut, cuts.length);
+          }
           break;
+      }
+      const b = w.buf;
+      for (let i = from; i < w.count; i++) {
+        const o = i * STRIDE;
+        minX = Math.min(minX, b[o + 4]!, b[o + 6]!);
+        maxX = Math.max(maxX, b[o + 4]!, b[o + 6]!);
+        minY = Math.min(minY, b[o + 5]!, b[o + 7]!);
+        maxY = Math.max(maxY, b[o + 5]!, b[o + 7]!);
       }
       if (s.kind === 'cubic') { lastX = s.x3; lastY = s.y3; }
       else if (s.kind === 'quad') { lastX = s.x2; lastY = s.y2; }
@@ -291,20 +318,24 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
     }
     const gap = Math.hypot(lastX - c.startX, lastY - c.startY);
     if (gap > pointTol) minKept = Math.min(minKept, gap);
-    if (c.closed && gap > pointTol) addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);
+    if (c.closed && gap > pointTol) {
+      addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);
+      minX = Math.min(minX, lastX, c.startX);
+      maxX = Math.max(maxX, lastX, c.startX);
+      minY = Math.min(minY, lastY, c.startY);
+      maxY = Math.max(maxY, lastY, c.startY);
+    }
     const count = w.count - first;
     chains.push({ contour: ci, first, count, cyclic: count > 0 && (c.closed || gap <= pointTol) });
   }
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const b = w.buf;
-  for (let i = 0; i < w.count; i++) {
-    const o = i * STRIDE;
-    minX = Math.min(minX, b[o + 4]!, b[o + 6]!);
-    maxX = Math.max(maxX, b[o + 4]!, b[o + 6]!);
-    minY = Math.min(minY, b[o + 5]!, b[o + 7]!);
-    maxY = Math.max(maxY, b[o + 5]!, b[o + 7]!);
-  }
-  return { buf: w.buf, contourOf: w.contourOf, count: w.count, chains, bbox: [minX, minY, maxX, maxY], minKeptExtent: minKept };
+  return {
+    buf: w.buf.subarray(0, w.count * STRIDE),
+    contourOf: w.contourOf.subarray(0, w.count),
+    count: w.count,
+    chains,
+    bbox: [minX, minY, maxX, maxY],
+    minKeptExtent: minKept,
+  };
 }
 
 /** Point of piece i at local parameter u ∈ [0, 1]. */

@@ -26,7 +26,7 @@ describe('addQuadraticRootsInUnitInterval', () => {
     for (let k = 0; k < 2000; k++) cases.push([random(), random() * 2, random() * 3]);
     for (const [c0, c1, c2] of cases) {
       const out = [7];
-      addQuadraticRootsInUnitInterval(out, c0, c1, c2);
+      addQuadraticRootsInUnitInterval(out, Float64Array.of(c0, c1, c2));
       expect(out).toEqual([7, ...getPolynomialRoots([c0, c1, c2], 0, 1, 0)]);
     }
   });

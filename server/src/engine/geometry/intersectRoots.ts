@@ -34,7 +34,7 @@ function trim(c: readonly number[]): number[] {
   return c.slice(0, n);
 }
 
-function bisect(c: readonly number[], a: number, b: number, fa: number): number {
+function bisect(c: ArrayLike<number>, a: number, b: number, fa: number): number {
   for (let i = 0; i < MAX_BISECTION_STEPS; i++) {
     const m = 0.5 * (a + b);
     if (m <= a || m >= b) break;
@@ -84,23 +84,20 @@ export function getPolynomialRoots(coefficients: readonly number[], lo: number, 
   return out;
 }
 
-/** Coefficients of the quadratic being solved by `addQuadraticRootsInUnitInterval`, reused. */
-const QUADRATIC = [0, 0, 0];
-
 /**
- * Appends to `out` what `getPolynomialRoots([c0, c1, c2], 0, 1, 0)` returns, with the same
+ * Appends to `out` what `getPolynomialRoots([c[0], c[1], c[2]], 0, 1, 0)` returns, with the same
  * floating-point operations in the same order and no allocation (buildPieces calls it twice per
- * Bézier segment).
+ * Bézier segment; the coefficients come in a typed array because doubles passed as arguments to a
+ * call that is not inlined are boxed).
  */
-export function addQuadraticRootsInUnitInterval(out: number[], c0: number, c1: number, c2: number): void {
+export function addQuadraticRootsInUnitInterval(out: number[], c: Float64Array): void {
+  const c0 = c[0]!, c1 = c[1]!, c2 = c[2]!;
   if (c2 === 0) {
     if (c1 === 0) return;
     const r = -c0 / c1;
     if (r >= 0 && r <= 1) out.push(r);
     return;
   }
-  const c = QUADRATIC;
-  c[0] = c0; c[1] = c1; c[2] = c2;
   // The critical point, the root of the derivative [c1·1, c2·2], splits [0, 1] when strictly inside.
   const crit = -(c1 * 1) / (c2 * 2);
   const inside = crit > 0 && crit < 1;

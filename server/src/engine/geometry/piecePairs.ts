@@ -32,16 +32,16 @@ function spreadBits(v: number): number {
   return v;
 }
 
-/** Indices 0..codes.length−1 ordered by codes (unsigned 32-bit), stable: LSD radix sort, two 16-bit digits. */
+/** Indices 0..codes.length−1 ordered by codes (unsigned 32-bit), stable: LSD radix sort, four 8-bit digits. */
 export function sortByCode(codes: Uint32Array): Int32Array {
   const n = codes.length;
   let from = new Int32Array(n);
   let to = new Int32Array(n);
   for (let k = 0; k < n; k++) from[k] = k;
-  const counts = new Int32Array(1 << 16);
-  for (let shift = 0; shift < 32; shift += 16) {
+  const counts = new Int32Array(256);
+  for (let shift = 0; shift < 32; shift += 8) {
     counts.fill(0);
-    for (let k = 0; k < n; k++) counts[(codes[k]! >>> shift) & 0xffff]!++;
+    for (let k = 0; k < n; k++) counts[(codes[k]! >>> shift) & 0xff]!++;
     let sum = 0;
     for (let d = 0; d < counts.length; d++) {
       const c = counts[d]!;
@@ -50,7 +50,7 @@ export function sortByCode(codes: Uint32Array): Int32Array {
     }
     for (let k = 0; k < n; k++) {
       const idx = from[k]!;
-      to[counts[(codes[idx]! >>> shift) & 0xffff]!++] = idx;
+      to[counts[(codes[idx]! >>> shift) & 0xff]!++] = idx;
     }
     [from, to] = [to, from];
   }

@@ -77,10 +77,19 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
       if (p === null || p === undefined || area(j) < area(p)) parent[i] = j;
     }
   }
+  // Holes per outer boundary, in contour order, gathered in one pass.
+  const holesOf = new Map<number, number[]>();
+  for (let k = 0; k < n; k++) {
+    const p = parent[k];
+    if (!closed[k] || depth[k]! % 2 !== 1 || p === null || p === undefined) continue;
+    const list = holesOf.get(p);
+    if (list) list.push(k);
+    else holesOf.set(p, [k]);
+  }
   const parts: Part[] = [];
   for (let i = 0; i < n; i++) {
     if (!closed[i] || depth[i]! % 2 !== 0) continue;
-    const holes = contours.map((_, k) => k).filter((k) => closed[k] && parent[k] === i && depth[k]! % 2 === 1);
+    const holes = holesOf.get(i) ?? [];
     const o = contours[i]!.metrics.orientation;
     const orientations = holes.map((h) => contours[h]!.metrics.orientation);
     const consistent = o === null || orientations.some((h) => h === null) ? null : orientations.every((h) => h !== o);

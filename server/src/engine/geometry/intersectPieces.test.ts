@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildPieces, KIND_CUBIC, KIND_LINE, STRIDE } from './intersectPieces';
-import { contourFromSegments, cubic, line } from '../../../../test/support/shapes';
+import { buildPieces, KIND_ARC, KIND_CUBIC, KIND_LINE, STRIDE } from './intersectPieces';
+import { circleArcs, contourFromSegments, cubic, line } from '../../../../test/support/shapes';
 
 describe('buildPieces', () => {
   // The loop cubic (0,0),(3,3),(−1,3),(2,0): x(t) = 9t − 21t² + 14t³, so x′ = 9 − 42t + 42t² = 0 at
@@ -40,6 +40,20 @@ describe('buildPieces', () => {
     // x runs from 0 to the last end point 2·copies; y peaks at y(½) = 9/4.
     expect(P.bbox.slice(0, 3)).toEqual([0, 0, 2 * copies]);
     expect(P.bbox[3]).toBeCloseTo(9 / 4, 14);
+  });
+
+  it('cuts a circle drawn as one arc at its four axis points (circle equation), growing the buffer from room for two pieces', () => {
+    const P = buildPieces([contourFromSegments(circleArcs(0, 0, 5, 1), true)], 0);
+    expect(P.count).toBeGreaterThanOrEqual(4);
+    expect(P.buf.length).toBe(P.count * STRIDE);
+    for (let i = 0; i < P.count; i++) {
+      const o = i * STRIDE;
+      expect(P.buf[o]).toBe(KIND_ARC);
+      expect(Math.hypot(P.buf[o + 6]!, P.buf[o + 7]!)).toBeCloseTo(5, 12);
+      // Every cut lies on an axis: x = 0 or y = 0 (the segment's own end aside).
+      if (i < P.count - 1) expect(Math.min(Math.abs(P.buf[o + 6]!), Math.abs(P.buf[o + 7]!))).toBeLessThan(1e-12);
+    }
+    expect(P.bbox.map((v) => Math.round(v * 1e9) / 1e9)).toEqual([-5, -5, 5, 5]);
   });
 
   it('keeps the chains, closing lines and bounding box of several contours, and leaves out point-sized segments', () => {

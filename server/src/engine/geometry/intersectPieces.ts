@@ -67,7 +67,7 @@ class PieceWriter {
   }
 
   private grow(): void {
-    const capacity = Math.ceil(1.5 * this.contourOf.length);
+    const capacity = Math.ceil(1.5 * this.contourOf.length) + 4;
     const buf = new Float64Array(STRIDE * capacity);
     buf.set(this.buf);
     this.buf = buf;
@@ -274,7 +274,7 @@ function controlExtent(s: Segment): number {
 export function buildPieces(contours: readonly Contour[], pointTol: number): Pieces {
   let segments = 0;
   for (let ci = 0; ci < contours.length; ci++) segments += contours[ci]!.segments.length;
-  const w = new PieceWriter(segments + (segments >> 1) + contours.length + 16);
+  const w = new PieceWriter(segments + (segments >> 1) + contours.length);
   const cuts: number[] = [];
   const chains: PieceChain[] = [];
   let minKept = Infinity;

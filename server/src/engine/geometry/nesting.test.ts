@@ -3,7 +3,7 @@ import { readSvg } from '../formats/svg/readSvg';
 import { wrapSvg } from '../../../../test/support/checkCases';
 import { measureContour } from './measure';
 import { getFileSummary, getNesting } from './nesting';
-import { getWindingNumber } from './winding';
+import { createWindingTester, getWindingNumber } from './winding';
 import { circleArcs, contourFromSegments, polygonSegments } from '../../../../test/support/shapes';
 
 const analyse = (svg: string) => {
@@ -25,6 +25,13 @@ describe('getWindingNumber', () => {
     const bow = contourFromSegments(polygonSegments([[0, 0], [2, 2], [2, 0], [0, 2]], false), true);
     expect(getWindingNumber(bow, 1.5, 1).winding).toBe(-1);
     expect(getWindingNumber(bow, 0.5, 1).winding).toBe(1);
+  });
+  it('leaves out a segment shorter than 1e-9 of the size, so a point just off the square is still outside (REFERENCES.md §7.3 tolerance)', () => {
+    // A 1e-12 mm step out of the corner (2, 0) and back: within eps = 1e-9·2√2, so both are dropped.
+    const notched = createWindingTester(contourFromSegments(polygonSegments([[0, 0], [2, 0], [2 + 1e-12, 0], [2, 0], [2, 2], [0, 2]], false), true));
+    expect(notched.pieces.count).toBe(4);
+    expect(notched.getWinding(1, 1)).toEqual({ winding: 1, onBoundary: false });
+    expect(notched.getWinding(2.5, 1e-13)).toEqual({ winding: 0, onBoundary: false });
   });
   it('counts 1 inside a circle of arcs and 0 just outside (circle equation)', () => {
     const c = contourFromSegments(circleArcs(0, 0, 5, 2), true);

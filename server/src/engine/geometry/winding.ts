@@ -33,7 +33,8 @@ export function createWindingTester(contour: Contour): WindingTester {
   const probe = buildPieces([closed], 0);
   const [a, b, c, d] = probe.bbox;
   const eps = probe.count > 0 ? RELATIVE_POINT_TOLERANCE * Math.hypot(c - a, d - b) : 0;
-  const pieces = buildPieces([closed], eps);
+  // The pieces at tolerance eps differ from the probe only when a kept segment or gap is within eps.
+  const pieces = probe.minKeptExtent > eps ? probe : buildPieces([closed], eps);
   const buf = pieces.buf;
   return {
     pieces,

@@ -102,14 +102,26 @@ export function addQuadraticRootsInUnitInterval(out: number[], c: Float64Array):
   const crit = -(c1 * 1) / (c2 * 2);
   const inside = crit > 0 && crit < 1;
   let prev = Number.NaN;
-  let fa = evaluatePolynomial(c, 0);
+  // p(x) written out as evaluatePolynomial's Horner steps: ((0·x + c2)·x + c1)·x + c0, where
+  // 0·x + c2 = c2 exactly for x ≥ 0 and c2 ≠ 0.
+  let fa = (c2 * 0 + c1) * 0 + c0;
   if (Math.abs(fa) <= 0) { out.push(0); prev = 0; }
   let a = 0;
   for (let k = inside ? 0 : 1; k < 2; k++) {
     const b = k === 0 ? crit : 1;
-    const fb = evaluatePolynomial(c, b);
+    const fb = (c2 * b + c1) * b + c0;
     if (fa !== 0 && fb !== 0 && (fa < 0) !== (fb < 0)) {
-      const x = bisect(c, a, b, fa);
+      // bisect(c, a, b, fa), inlined.
+      let lo = a, hi = b, flo = fa;
+      let x = Number.NaN;
+      for (let i = 0; i < MAX_BISECTION_STEPS; i++) {
+        const m = 0.5 * (lo + hi);
+        if (m <= lo || m >= hi) break;
+        const fm = (c2 * m + c1) * m + c0;
+        if (fm === 0) { x = m; break; }
+        if ((fm < 0) === (flo < 0)) { lo = m; flo = fm; } else { hi = m; }
+      }
+      if (Number.isNaN(x)) x = 0.5 * (lo + hi);
       if (x !== prev) out.push(x);
       prev = x;
     }

@@ -2,7 +2,7 @@ import paper from 'paper';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { arcFromSvgEndpoints } from './arc';
-import { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart } from './bounds';
+import { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart, setSegmentBounds, type Box } from './bounds';
 import { arc, cubic, ellipseArc, line, quad } from '../../../../test/support/shapes';
 import type { Arc, Segment } from '../types';
 
@@ -60,6 +60,29 @@ describe('getSegmentBounds', () => {
         box.forEach((v, i) => expect(v).toBeCloseTo(expected[i]!, 8));
       }),
       { seed: 4711, numRuns: 300 },
+    );
+  });
+
+  it('gives, bit for bit, the end points plus the curve at getBezierCriticalParameters (its definition; seed 2718)', () => {
+    const coord = fc.integer({ min: -100000, max: 100000 }).map((v) => v / 1000);
+    fc.assert(
+      fc.property(fc.array(coord, { minLength: 8, maxLength: 8 }), fc.boolean(), (p, isQuad) => {
+        const s: Segment = isQuad ? quad(p[0]!, p[1]!, p[2]!, p[3]!, p[4]!, p[5]!) : cubic(p[0]!, p[1]!, p[2]!, p[3]!, p[4]!, p[5]!, p[6]!, p[7]!);
+        const [ex, ey] = getSegmentEnd(s);
+        const expected: Box = [Math.min(s.x0, ex), Math.min(s.y0, ey), Math.max(s.x0, ex), Math.max(s.y0, ey)];
+        for (const t of getBezierCriticalParameters(s)) {
+          const [x, y] = getSegmentPoint(s, t);
+          if (x < expected[0]) expected[0] = x;
+          if (y < expected[1]) expected[1] = y;
+          if (x > expected[2]) expected[2] = x;
+          if (y > expected[3]) expected[3] = y;
+        }
+        expect(getSegmentBounds(s)).toEqual(expected);
+        const reused: Box = [NaN, NaN, NaN, NaN];
+        setSegmentBounds(s, reused);
+        expect(reused).toEqual(expected);
+      }),
+      { seed: 2718, numRuns: 500 },
     );
   });
 

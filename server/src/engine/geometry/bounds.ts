@@ -4,7 +4,8 @@
  * angles where x or y is extremal — never from control points (a control polygon's box is larger).
  */
 import { getArcPoint } from './arc';
-import type { Arc, Segment } from '../types';
+import { getVectorLength } from './length';
+import type { Arc, Cubic, Quad, Segment } from '../types';
 
 export type Box = [minX: number, minY: number, maxX: number, maxY: number];
 
@@ -106,22 +107,111 @@ function isAngleOnArc(a: Arc, theta: number): boolean {
   return normalised <= Math.abs(a.sweep);
 }
 
-function getArcBounds(a: Arc): Box {
-  const box: Box = [
-    Math.min(a.x0, a.x1), Math.min(a.y0, a.y1),
-    Math.max(a.x0, a.x1), Math.max(a.y0, a.y1),
-  ];
+/** Writes the arc's exact box into `box`. */
+function setArcBounds(a: Arc, box: Box): void {
+  box[0] = Math.min(a.x0, a.x1); box[1] = Math.min(a.y0, a.y1);
+  box[2] = Math.max(a.x0, a.x1); box[3] = Math.max(a.y0, a.y1);
   // x(θ) = cx + ux cos θ + vx sin θ is largest, cx + √(ux² + vx²), at θ = atan2(vx, ux) and
   // smallest, cx − √(ux² + vx²), half a turn later; the same for y with (uy, vy).
-  const rx = Math.hypot(a.ux, a.vx);
-  const ry = Math.hypot(a.uy, a.vy);
+  const rx = getVectorLength(a.ux, a.vx);
+  const ry = getVectorLength(a.uy, a.vy);
   const thetaMaxX = Math.atan2(a.vx, a.ux);
   const thetaMaxY = Math.atan2(a.vy, a.uy);
   if (isAngleOnArc(a, thetaMaxX)) box[2] = Math.max(box[2], a.cx + rx);
   if (isAngleOnArc(a, thetaMaxX + Math.PI)) box[0] = Math.min(box[0], a.cx - rx);
   if (isAngleOnArc(a, thetaMaxY)) box[3] = Math.max(box[3], a.cy + ry);
   if (isAngleOnArc(a, thetaMaxY + Math.PI)) box[1] = Math.min(box[1], a.cy - ry);
-  return box;
+}
+
+/** Critical parameters of the Bézier being boxed (at most four), sorted in place by setBezierBounds. */
+const criticalScratch: number[] = [0, 0, 0, 0];
+
+/** Adds the roots of a·t² + b·t + c (see pushDerivativeRoots) that lie in (0, 1) to the scratch list. */
+function addDerivativeRoots(a: number, b: number, c: number, count: number): number {
+  let r0: number, r1 = NaN;
+  if (a === 0) {
+    if (b === 0) return count;
+    r0 = -c / b;
+  } else {
+    const disc = b * b - 4 * a * c;
+    if (disc <= 0) {
+      r0 = -b / (2 * a);
+    } else {
+      const q = -0.5 * (b + (b >= 0 ? 1 : -1) * Math.sqrt(disc));
+      r0 = q / a;
+      r1 = c / q;
+    }
+  }
+  if (r0 > 0 && r0 < 1) criticalScratch[count++] = r0;
+  if (r1 > 0 && r1 < 1) criticalScratch[count++] = r1;
+  return count;
+}
+
+/**
+ * Writes a quad's or cubic's exact box into `box`: the end points, then the curve at each critical
+ * parameter in increasing order (getBezierCriticalParameters, with no arrays made).
+ */
+function setBezierBounds(s: Quad | Cubic, box: Box): void {
+  let ex: number, ey: number, count: number;
+  if (s.kind === 'quad') {
+    ex = s.x2; ey = s.y2;
+    count = addDerivativeRoots(0, s.x0 - 2 * s.x1 + s.x2, s.x1 - s.x0, 0);
+    count = addDerivativeRoots(0, s.y0 - 2 * s.y1 + s.y2, s.y1 - s.y0, count);
+  } else {
+    ex = s.x3; ey = s.y3;
+    const dx0 = s.x1 - s.x0, dx1 = s.x2 - s.x1, dx2 = s.x3 - s.x2;
+    const dy0 = s.y1 - s.y0, dy1 = s.y2 - s.y1, dy2 = s.y3 - s.y2;
+    count = addDerivativeRoots(dx0 - 2 * dx1 + dx2, 2 * (dx1 - dx0), dx0, 0);
+    count = addDerivativeRoots(dy0 - 2 * dy1 + dy2, 2 * (dy1 - dy0), dy0, count);
+  }
+  box[0] = Math.min(s.x0, ex); box[1] = Math.min(s.y0, ey);
+  box[2] = Math.max(s.x0, ex); box[3] = Math.max(s.y0, ey);
+  const ts = criticalScratch;
+  for (let i = 1; i < count; i++) {
+    const t = ts[i]!;
+    let j = i - 1;
+    while (j >= 0 && ts[j]! > t) {
+      ts[j + 1] = ts[j]!;
+      j--;
+    }
+    ts[j + 1] = t;
+  }
+  for (let i = 0; i < count; i++) {
+    const t = ts[i]!;
+    const u = 1 - t;
+    let x: number, y: number;
+    if (s.kind === 'quad') {
+      const b0 = u * u, b1 = 2 * u * t, b2 = t * t;
+      x = b0 * s.x0 + b1 * s.x1 + b2 * s.x2;
+      y = b0 * s.y0 + b1 * s.y1 + b2 * s.y2;
+    } else {
+      const b0 = u * u * u, b1 = 3 * u * u * t, b2 = 3 * u * t * t, b3 = t * t * t;
+      x = b0 * s.x0 + b1 * s.x1 + b2 * s.x2 + b3 * s.x3;
+      y = b0 * s.y0 + b1 * s.y1 + b2 * s.y2 + b3 * s.y3;
+    }
+    if (x < box[0]) box[0] = x;
+    if (y < box[1]) box[1] = y;
+    if (x > box[2]) box[2] = x;
+    if (y > box[3]) box[3] = y;
+  }
+}
+
+/**
+ * Writes the exact bounding box [minX, minY, maxX, maxY] of a segment into `box` (see
+ * getSegmentBounds); for callers that box many segments without making an array for each.
+ */
+export function setSegmentBounds(s: Segment, box: Box): void {
+  switch (s.kind) {
+    case 'line':
+      box[0] = Math.min(s.x0, s.x1); box[1] = Math.min(s.y0, s.y1);
+      box[2] = Math.max(s.x0, s.x1); box[3] = Math.max(s.y0, s.y1);
+      return;
+    case 'arc':
+      setArcBounds(s, box);
+      return;
+    default:
+      setBezierBounds(s, box);
+  }
 }
 
 /**
@@ -130,15 +220,7 @@ function getArcBounds(a: Arc): Box {
  * rounding of a quadratic's roots, so a box edge may sit a few ulps inside the true extremum.
  */
 export function getSegmentBounds(s: Segment): Box {
-  if (s.kind === 'arc') return getArcBounds(s);
-  const [ex, ey] = getSegmentEnd(s);
-  const box: Box = [Math.min(s.x0, ex), Math.min(s.y0, ey), Math.max(s.x0, ex), Math.max(s.y0, ey)];
-  for (const t of getBezierCriticalParameters(s)) {
-    const [x, y] = getSegmentPoint(s, t);
-    if (x < box[0]) box[0] = x;
-    if (y < box[1]) box[1] = y;
-    if (x > box[2]) box[2] = x;
-    if (y > box[3]) box[3] = y;
-  }
+  const box: Box = [0, 0, 0, 0];
+  setSegmentBounds(s, box);
   return box;
 }

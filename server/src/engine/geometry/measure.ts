@@ -4,14 +4,14 @@
  * import for "measure a segment".
  */
 import { CompensatedSum, getSegmentArea } from './area';
-import { getSegmentBounds, getSegmentEnd } from './bounds';
-import { getSegmentLengthEstimate } from './length';
+import { getSegmentEnd, setSegmentBounds, type Box } from './bounds';
+import { getSegmentLengthFlagged, getVectorLength } from './length';
 import type { Contour, ContourMetrics, Measured, YAxis } from '../types';
 
 export { CompensatedSum, getSegmentArea } from './area';
-export { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart } from './bounds';
+export { getBezierCriticalParameters, getSegmentBounds, getSegmentEnd, getSegmentPoint, getSegmentStart, setSegmentBounds } from './bounds';
 export type { Box } from './bounds';
-export { getArcLength, getArcLengthEstimate, getBezierLength, getSegmentLength, getSegmentLengthEstimate } from './length';
+export { getArcLength, getArcLengthEstimate, getBezierLength, getSegmentLength, getSegmentLengthEstimate, getVectorLength } from './length';
 export type { LengthEstimate } from './length';
 
 /** measureContour's figures plus what it knows about their accuracy. */
@@ -47,22 +47,24 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
   const { segments, closed, startX, startY } = contour;
   const length = new CompensatedSum();
   const area = new CompensatedSum();
-  let lengthDepthCapped = false;
+  const flags = { depthCapped: false };
+  const box: Box = [0, 0, 0, 0];
   let minX = startX, minY = startY, maxX = startX, maxY = startY;
   let endX = startX, endY = startY;
-  for (const s of segments) {
-    const l = getSegmentLengthEstimate(s);
-    length.add(l.value);
-    if (l.depthCapped) lengthDepthCapped = true;
+  for (let i = 0; i < segments.length; i++) {
+    const s = segments[i]!;
+    length.add(getSegmentLengthFlagged(s, flags));
     area.add(getSegmentArea(s, startX, startY));
-    const [x0, y0, x1, y1] = getSegmentBounds(s);
-    if (x0 < minX) minX = x0;
-    if (y0 < minY) minY = y0;
-    if (x1 > maxX) maxX = x1;
-    if (y1 > maxY) maxY = y1;
-    [endX, endY] = getSegmentEnd(s);
+    setSegmentBounds(s, box);
+    if (box[0] < minX) minX = box[0];
+    if (box[1] < minY) minY = box[1];
+    if (box[2] > maxX) maxX = box[2];
+    if (box[3] > maxY) maxY = box[3];
   }
-  const endToStart = Math.hypot(startX - endX, startY - endY);
+  const last = segments[segments.length - 1];
+  if (last !== undefined) [endX, endY] = getSegmentEnd(last);
+  const lengthDepthCapped = flags.depthCapped;
+  const endToStart = getVectorLength(startX - endX, startY - endY);
   if (closed) length.add(endToStart);
   const lengthMm = length.value;
 

@@ -17,18 +17,20 @@ export const DEFAULT_NEAR_CLOSED_TOLERANCE_MM = 0.1;
  *  Source: common practice, no source. */
 export const ZERO_LENGTH_MM = 1e-6;
 
-/** Target accuracy of a Bézier segment's length (adaptive Gauss–Legendre, see length.ts): a panel is
- *  accepted when its 16-point value and the sum of its two halves differ by at most this fraction.
- *  Quantity: length · Unit: none · Relative (to the panel's length, hence to the segment's).
- *  Why this size: 1e-9 of a 1 m contour is 1 nm, far below any cutter's resolution, while still a few
- *  panels for smooth curves (REFERENCES §4.5: one panel already gives ~1e-14 on smooth cubics).
+/** Guaranteed accuracy of a Bézier segment's length (Gauss–Legendre panels, see length.ts
+ *  BezierLengthIntegrator): the panels' a-priori error bounds add up to at most this fraction of the
+ *  length (rounding aside, ~1e-15), unless the quadrature reports that it hit BEZIER_LENGTH_MAX_DEPTH.
+ *  Quantity: length · Unit: none · Relative (to the segment's length).
+ *  Why this size: 1e-9 of a 1 m contour is 1 nm, far below any cutter's resolution, while one 4- or
+ *  8-point panel meets it on smooth curves (REFERENCES §4.5: one 16-point panel gives ~1e-14).
  *  Source: common practice, no source. */
 export const BEZIER_LENGTH_REL_TOL = 1e-9;
 
-/** Iteration cap: deepest bisection of a Bézier length panel (at most 2^20 panels along one path of the
- *  recursion). Reaching it is reported (`depthCapped`) and the best estimate so far is returned.
- *  Why this size: smooth integrands converge after a few levels; only a kink (a cusp missed by the
- *  split at critical parameters) recurses further, and 2^-20 of the parameter range isolates it.
+/** Iteration cap: deepest bisection of a Bézier (or short elliptical arc) length panel (at most 2^20
+ *  panels along one path of the recursion). Reaching it is reported (`depthCapped`) and the best
+ *  estimate so far is returned. Why this size: smooth integrands converge after a few levels; only a
+ *  near-cusp (|B′| nearly 0, not split off exactly) recurses further, and 2^-20 of the parameter
+ *  range isolates it.
  *  Source: REFERENCES §4.5 (QUADPACK-style adaptive scheme, "depth limit ~20"). */
 export const BEZIER_LENGTH_MAX_DEPTH = 20;
 

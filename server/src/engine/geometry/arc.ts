@@ -21,10 +21,43 @@ export function arcFromSvgEndpoints(
   x2: number, y2: number,
   span: SourceSpan,
 ): Arc | Line | null {
-  if (x1 === x2 && y1 === y2) return null;
+  const shape = getSvgArcCentre(x1, y1, rxIn, ryIn, phiDeg, largeArc, sweepFlag, x2, y2);
+  if (shape === SVG_ARC_NONE) return null;
+  if (shape === SVG_ARC_LINE) return { kind: 'line', x0: x1, y0: y1, x1: x2, y1: y2, span };
+  const c = svgArcCentre;
+  return {
+    kind: 'arc',
+    x0: x1, y0: y1, x1: x2, y1: y2,
+    cx: c[0]!, cy: c[1]!,
+    ux: c[2]!, uy: c[3]!,
+    vx: c[4]!, vy: c[5]!,
+    theta0: c[6]!, sweep: c[7]!,
+    span,
+  };
+}
+
+/** getSvgArcCentre's results: the end points coincide, a radius is zero, or an arc (in svgArcCentre). */
+export const SVG_ARC_NONE = 0, SVG_ARC_LINE = 1, SVG_ARC = 2;
+
+/** cx, cy, ux, uy, vx, vy, theta0, sweep of the last arc getSvgArcCentre found (overwritten by each call). */
+export const svgArcCentre = new Float64Array(8);
+
+/**
+ * The conversion of arcFromSvgEndpoints without building a segment (for readers that map the arc
+ * before building it): returns SVG_ARC_NONE, SVG_ARC_LINE or SVG_ARC, and for SVG_ARC writes the
+ * centre form into svgArcCentre.
+ */
+export function getSvgArcCentre(
+  x1: number, y1: number,
+  rxIn: number, ryIn: number,
+  phiDeg: number,
+  largeArc: boolean, sweepFlag: boolean,
+  x2: number, y2: number,
+): number {
+  if (x1 === x2 && y1 === y2) return SVG_ARC_NONE;
   let rx = Math.abs(rxIn);
   let ry = Math.abs(ryIn);
-  if (rx === 0 || ry === 0) return { kind: 'line', x0: x1, y0: y1, x1: x2, y1: y2, span };
+  if (rx === 0 || ry === 0) return SVG_ARC_LINE;
 
   const phi = ((phiDeg % 360) * Math.PI) / 180;
   const cosPhi = Math.cos(phi);
@@ -65,15 +98,12 @@ export function arcFromSvgEndpoints(
   // A half turn has u × v = ±0 and atan2 returns ±π from the sign of zero; the flag decides.
   if (Math.abs(sweep) === Math.PI) sweep = sweepFlag ? Math.PI : -Math.PI;
 
-  return {
-    kind: 'arc',
-    x0: x1, y0: y1, x1: x2, y1: y2,
-    cx, cy,
-    ux: rx * cosPhi, uy: rx * sinPhi,
-    vx: -ry * sinPhi, vy: ry * cosPhi,
-    theta0, sweep,
-    span,
-  };
+  const c = svgArcCentre;
+  c[0] = cx; c[1] = cy;
+  c[2] = rx * cosPhi; c[3] = rx * sinPhi;
+  c[4] = -ry * sinPhi; c[5] = ry * cosPhi;
+  c[6] = theta0; c[7] = sweep;
+  return SVG_ARC;
 }
 
 /** Point of an arc at angle θ: C + U·cos θ + V·sin θ. */

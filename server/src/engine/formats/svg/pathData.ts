@@ -1,6 +1,6 @@
 import type { Fix, Segment, SourceSpan } from '../../types';
-import { arcFromSvgEndpoints } from '../../geometry/arc';
-import { isIdentityMatrix, transformSegment, type Matrix } from '../../geometry/transform';
+import { arcFromSvgEndpoints, getSvgArcCentre, SVG_ARC, svgArcCentre } from '../../geometry/arc';
+import { isIdentityMatrix, type Matrix } from '../../geometry/transform';
 import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
 
 /**
@@ -66,6 +66,9 @@ export function parsePathData(d: string, baseOffset: number, matrix: Matrix | nu
 // Character codes.
 const TAB = 9, LF = 10, FF = 12, CR = 13, SPACE = 32, PLUS = 43, COMMA = 44, MINUS = 45, DOT = 46;
 const DIGIT_0 = 48, DIGIT_1 = 49, DIGIT_9 = 57, UPPER_E = 69, LOWER_E = 101;
+
+/** Segment kinds while a group is turned into a segment. */
+const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
 
 /** SVG 2 wsp: tab, line feed, form feed, carriage return, space. */
 function isWsp(c: number): boolean {
@@ -135,8 +138,12 @@ class PathDataParser {
   private lastEnd = 0;
   private lastX0 = 0;
   private lastY0 = 0;
-  /** The last segment in user units (the close fix edits the text, so it works before the matrix). */
-  private lastSegment: Segment | null = null;
+  /**
+   * The last segment in user units (the close fix edits the text, so it works before the matrix):
+   * its kind, and x1, y1, x2, y2 (control points) and its end point x, y as read.
+   */
+  private lastKind = LINE;
+  private readonly lastPoints = new Float64Array(6);
 
   constructor(private readonly d: string, private readonly base: number, private readonly matrix: Matrix | null) {
     this.n = d.length;
@@ -384,67 +391,68 @@ class PathDataParser {
   /** Turns the complete group in `args` into a segment and moves the current point. */
   private emit(cmd: DrawCommand, relative: boolean, start: number, end: number): void {
     const a = this.args;
+    const p = this.lastPoints;
     const x0 = this.cx, y0 = this.cy;
     const ox = relative ? x0 : 0, oy = relative ? y0 : 0;
     const span = this.span(start, end);
-    let seg: Segment;
+    let kind: number;
     let x: number, y: number;
     switch (cmd) {
       case 'L':
         x = ox + a[0]!; y = oy + a[1]!;
-        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        kind = LINE;
         this.ctrlKind = 0;
         break;
       case 'H':
         x = ox + a[0]!; y = y0;
-        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        kind = LINE;
         this.ctrlKind = 0;
         break;
       case 'V':
         x = x0; y = oy + a[0]!;
-        seg = { kind: 'line', x0, y0, x1: x, y1: y, span };
+        kind = LINE;
         this.ctrlKind = 0;
         break;
-      case 'C': {
-        const x2 = ox + a[2]!, y2 = oy + a[3]!;
+      case 'C':
+        p[0] = ox + a[0]!; p[1] = oy + a[1]!;
+        p[2] = ox + a[2]!; p[3] = oy + a[3]!;
         x = ox + a[4]!; y = oy + a[5]!;
-        seg = { kind: 'cubic', x0, y0, x1: ox + a[0]!, y1: oy + a[1]!, x2, y2, x3: x, y3: y, span };
-        this.ctrlKind = 1; this.px = x2; this.py = y2;
+        kind = CUBIC;
+        this.ctrlKind = 1; this.px = p[2]!; this.py = p[3]!;
         break;
-      }
-      case 'S': {
+      case 'S':
         // First control point: the previous C/S second control point reflected about the current point.
-        const x1 = this.ctrlKind === 1 ? 2 * x0 - this.px : x0;
-        const y1 = this.ctrlKind === 1 ? 2 * y0 - this.py : y0;
-        const x2 = ox + a[0]!, y2 = oy + a[1]!;
+        p[0] = this.ctrlKind === 1 ? 2 * x0 - this.px : x0;
+        p[1] = this.ctrlKind === 1 ? 2 * y0 - this.py : y0;
+        p[2] = ox + a[0]!; p[3] = oy + a[1]!;
         x = ox + a[2]!; y = oy + a[3]!;
-        seg = { kind: 'cubic', x0, y0, x1, y1, x2, y2, x3: x, y3: y, span };
-        this.ctrlKind = 1; this.px = x2; this.py = y2;
+        kind = CUBIC;
+        this.ctrlKind = 1; this.px = p[2]!; this.py = p[3]!;
         break;
-      }
-      case 'Q': {
-        const x1 = ox + a[0]!, y1 = oy + a[1]!;
+      case 'Q':
+        p[0] = ox + a[0]!; p[1] = oy + a[1]!;
         x = ox + a[2]!; y = oy + a[3]!;
-        seg = { kind: 'quad', x0, y0, x1, y1, x2: x, y2: y, span };
-        this.ctrlKind = 2; this.px = x1; this.py = y1;
+        kind = QUAD;
+        this.ctrlKind = 2; this.px = p[0]!; this.py = p[1]!;
         break;
-      }
-      case 'T': {
+      case 'T':
         // Control point: the previous Q/T control point reflected about the current point.
-        const x1 = this.ctrlKind === 2 ? 2 * x0 - this.px : x0;
-        const y1 = this.ctrlKind === 2 ? 2 * y0 - this.py : y0;
+        p[0] = this.ctrlKind === 2 ? 2 * x0 - this.px : x0;
+        p[1] = this.ctrlKind === 2 ? 2 * y0 - this.py : y0;
         x = ox + a[0]!; y = oy + a[1]!;
-        seg = { kind: 'quad', x0, y0, x1, y1, x2: x, y2: y, span };
-        this.ctrlKind = 2; this.px = x1; this.py = y1;
+        kind = QUAD;
+        this.ctrlKind = 2; this.px = p[0]!; this.py = p[1]!;
         break;
-      }
       case 'A':
         x = ox + a[5]!; y = oy + a[6]!;
-        seg = arcFromSvgEndpoints(x0, y0, a[0]!, a[1]!, a[2]!, a[3] === 1, a[4] === 1, x, y, span)
-          ?? { kind: 'line', x0, y0, x1: x, y1: y, span }; // coinciding ends: kept as a zero-length line
+        // Coinciding ends: kept as a zero-length line; a zero radius: a line (SVG 1.1 F.6.2).
+        kind = getSvgArcCentre(x0, y0, a[0]!, a[1]!, a[2]!, a[3] === 1, a[4] === 1, x, y) === SVG_ARC ? ARC : LINE;
         this.ctrlKind = 0;
         break;
     }
+    p[4] = x; p[5] = y;
+    this.lastKind = kind;
+    const seg = this.matrix === null ? this.buildSegment(kind, x0, y0, span) : this.buildMappedSegment(kind, x0, y0, span, this.matrix);
     let sub = this.sub;
     if (sub === null) {
       // First drawing command after a Z: a new subpath from the previous subpath's start.
@@ -453,8 +461,7 @@ class PathDataParser {
         spanStart: start, spanEnd: end, startSpan: span, endSpan: span,
       };
     }
-    sub.segments.push(this.matrix === null ? seg : transformSegment(seg, this.matrix));
-    this.lastSegment = seg;
+    sub.segments.push(seg);
     sub.spanEnd = end;
     sub.endSpan = span;
     this.cx = x;
@@ -469,6 +476,61 @@ class PathDataParser {
     this.lastEnd = end;
     this.lastX0 = x0;
     this.lastY0 = y0;
+  }
+
+  /** The segment of kind `kind` from (x0, y0) through lastPoints (and svgArcCentre for arcs), as read. */
+  private buildSegment(kind: number, x0: number, y0: number, span: SourceSpan): Segment {
+    const p = this.lastPoints;
+    switch (kind) {
+      case QUAD:
+        return { kind: 'quad', x0, y0, x1: p[0]!, y1: p[1]!, x2: p[4]!, y2: p[5]!, span };
+      case CUBIC:
+        return { kind: 'cubic', x0, y0, x1: p[0]!, y1: p[1]!, x2: p[2]!, y2: p[3]!, x3: p[4]!, y3: p[5]!, span };
+      case ARC: {
+        const c = svgArcCentre;
+        return {
+          kind: 'arc', x0, y0, x1: p[4]!, y1: p[5]!, cx: c[0]!, cy: c[1]!, ux: c[2]!, uy: c[3]!, vx: c[4]!, vy: c[5]!,
+          theta0: c[6]!, sweep: c[7]!, span,
+        };
+      }
+      default:
+        return { kind: 'line', x0, y0, x1: p[4]!, y1: p[5]!, span };
+    }
+  }
+
+  /** buildSegment's segment mapped by m, built once (the same arithmetic as transformSegment). */
+  private buildMappedSegment(kind: number, x0: number, y0: number, span: SourceSpan, m: Matrix): Segment {
+    const [a, b, c, d, e, f] = m;
+    const p = this.lastPoints;
+    const mx0 = a * x0 + c * y0 + e, my0 = b * x0 + d * y0 + f;
+    const mx = a * p[4]! + c * p[5]! + e, my = b * p[4]! + d * p[5]! + f;
+    switch (kind) {
+      case QUAD:
+        return {
+          kind: 'quad', x0: mx0, y0: my0,
+          x1: a * p[0]! + c * p[1]! + e, y1: b * p[0]! + d * p[1]! + f,
+          x2: mx, y2: my, span,
+        };
+      case CUBIC:
+        return {
+          kind: 'cubic', x0: mx0, y0: my0,
+          x1: a * p[0]! + c * p[1]! + e, y1: b * p[0]! + d * p[1]! + f,
+          x2: a * p[2]! + c * p[3]! + e, y2: b * p[2]! + d * p[3]! + f,
+          x3: mx, y3: my, span,
+        };
+      case ARC: {
+        const k = svgArcCentre;
+        return {
+          kind: 'arc', x0: mx0, y0: my0, x1: mx, y1: my,
+          cx: a * k[0]! + c * k[1]! + e, cy: b * k[0]! + d * k[1]! + f,
+          ux: a * k[2]! + c * k[3]!, uy: b * k[2]! + d * k[3]!,
+          vx: a * k[4]! + c * k[5]!, vy: b * k[4]! + d * k[5]!,
+          theta0: k[6]!, sweep: k[7]!, span,
+        };
+      }
+      default:
+        return { kind: 'line', x0: mx0, y0: my0, x1: mx, y1: my, span };
+    }
   }
 
   /** Ends the current subpath; `next` describes a relative moveto that follows it directly. */
@@ -498,7 +560,10 @@ class PathDataParser {
         x0: this.lastX0,
         y0: this.lastY0,
       };
-      result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, this.lastSegment!, group, next);
+      const last = this.lastKind === ARC
+        ? arcFromSvgEndpoints(this.lastX0, this.lastY0, group.args[0]!, group.args[1]!, group.args[2]!, group.args[3] === 1, group.args[4] === 1, this.lastPoints[4]!, this.lastPoints[5]!, this.span(this.lastStart, this.lastEnd))!
+        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.span(this.lastStart, this.lastEnd));
+      result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, last, group, next);
     }
     this.subpaths.push(result);
   }

@@ -1,6 +1,7 @@
+import { SaxesParser } from 'saxes';
 import { describe, expect, it } from 'vitest';
 import { parseNumberList } from './numbers';
-import { getDeclaredEntities, getPositionedValue, scanDocument } from './scan';
+import { getDeclaredEntities, getPositionedValue, scanDocument, type SvgElement } from './scan';
 
 describe('scanDocument', () => {
   it("finds raw attribute value spans with '>' in values, single quotes, CRLF and spaces around '=' (XML 1.0 [40]-[41])", () => {
@@ -42,5 +43,59 @@ describe('parseNumberList', () => {
     expect(parseNumberList('1,,2').error).toMatchObject({ start: 2, detail: 'two commas in a row' });
     expect(parseNumberList('1 2,').error).toMatchObject({ start: 3 });
     expect(parseNumberList('1e 2').error).toMatchObject({ start: 1 });
+  });
+});
+
+/** What saxes itself (the npm reference parser) makes of a document read in one piece. */
+function readWithSaxes(text: string): { attributes: Record<string, string>[]; tagEnds: number[]; errorAt: number | null } {
+  const parser = new SaxesParser({ position: true });
+  const attributes: Record<string, string>[] = [];
+  const tagEnds: number[] = [];
+  let errorAt: number | null = null;
+  parser.on('opentag', (tag) => {
+    attributes.push(tag.attributes as Record<string, string>);
+    tagEnds.push(parser.position);
+  });
+  parser.on('error', () => {
+    errorAt ??= parser.position;
+  });
+  parser.write(text).close();
+  return { attributes, tagEnds, errorAt };
+}
+
+function getElements(root: SvgElement | null): SvgElement[] {
+  return root ? [root, ...root.children.flatMap(getElements)] : [];
+}
+
+describe('scanDocument with long attribute values (kept from saxes, checked here)', () => {
+  const long = Array.from({ length: 600 }, (_, i) => `${i % 7 === 0 ? '\r\n' : i % 5 === 0 ? '\t' : ' '}C${i} ${-i}.5 ${i}e1 1 2 3`).join('');
+
+  it('gives the values, spans and tag ends saxes gives for the whole text (reference: saxes in one piece)', () => {
+    const text = `<svg><path id="a" d="${long}"/><g><path d = \n'${long}' x="1"></path></g><path d="${long}" title="${long}"/></svg>`;
+    const scanned = scanDocument(text);
+    const reference = readWithSaxes(text);
+    expect(scanned.error).toBeNull();
+    const elements = getElements(scanned.root);
+    expect(elements.map((e) => e.tagSpan.end)).toEqual(reference.tagEnds);
+    elements.forEach((element, i) => {
+      expect(Object.fromEntries([...element.attributes].map(([name, a]) => [name, a.value]))).toEqual(reference.attributes[i]);
+      for (const a of element.attributes.values()) expect(text.slice(a.span.start, a.span.end).replace(/\r\n?|[\t\n]/g, ' ')).toBe(a.value);
+    });
+  });
+
+  it("reads a long run inside another value (title='a=\"…\"') as saxes does (reference: saxes in one piece)", () => {
+    const text = `<svg><path title='a="${long}"' d="M0 0 L1 1"/></svg>`;
+    const path = scanDocument(text).root!.children[0]!;
+    expect(path.attributes.get('title')!.value).toBe(readWithSaxes(text).attributes[1]!['title']);
+    expect(path.attributes.get('d')!.value).toBe('M0 0 L1 1');
+  });
+
+  it('reports an error after a long value where saxes does (reference: saxes in one piece)', () => {
+    for (const text of [`<svg><path d="${long}" x></svg>`, `<svg><path d="${long}"/>`, `<svg><path d="${long}`]) {
+      const { error } = scanDocument(text);
+      expect(error).not.toBeNull();
+      const at = readWithSaxes(text).errorAt!;
+      expect(error!.span.end === at || error!.detail.startsWith('unclosed tag')).toBe(true);
+    }
   });
 });

@@ -114,7 +114,56 @@ function getSpanBefore(text: string, offset: number): SourceSpan {
   return { start, end };
 }
 
+/**
+ * Attribute values at least this long (UTF-16 units) that hold only plain characters are checked by
+ * scanDocument and not handed to saxes, which reads values one character at a time; ~1 ms of saxes
+ * per 30 kB, so shorter values are not worth a chunk boundary. Source: common practice, no source.
+ */
+const LONG_VALUE = 4096;
+
+/**
+ * A value of printable ASCII without quotes, `<` or `&`, or tab, LF and CR: well-formed as an XML
+ * attribute value (XML 1.0 [10] AttValue, [2] Char), and nothing in it needs decoding.
+ */
+const PLAIN_VALUE = /^[\t\n\r\x20\x21\x23-\x25\x28-\x3b\x3d-\x7e]*$/;
+
+/** Where an attribute value may start: `=`, optional whitespace, a quote (XML 1.0 [25] Eq). */
+const VALUE_START = /=[ \t\r\n]*["']/g;
+
+/** An attribute whose value kept from saxes is decoded on first use (attribute-value normalisation). */
+class PlainAttribute implements SvgAttribute {
+  private decoded: string | undefined;
+
+  constructor(private readonly text: string, readonly span: SourceSpan) {}
+
+  /** XML 1.0 §3.3.3: each tab, LF, CR or CR LF becomes one space (the value has no references). */
+  get value(): string {
+    this.decoded ??= this.text.slice(this.span.start, this.span.end).replace(/\r\n?|[\t\n]/g, ' ');
+    return this.decoded;
+  }
+}
+
+/** Thrown when a kept-back run turns out not to be one whole attribute value: scan again without. */
+class KeptRunMisplaced extends Error {}
+
+/**
+ * Scans the document. Long plain attribute values (a path's `d` of megabytes) are not written to
+ * saxes: the text is written in chunks that stop after such a value's opening quote and resume at its
+ * closing quote, when saxes is inside a start tag there. saxes then sees an empty value; positions
+ * after the gap are mapped back by the gap's length, the value gets its span from our own rescan of
+ * the start tag and is decoded on first use. A run that is not exactly one attribute value (a `="`
+ * inside another value) makes the scan start over without gaps.
+ */
 export function scanDocument(text: string): ScannedDocument {
+  try {
+    return scanDocumentInChunks(text, true);
+  } catch (e) {
+    if (!(e instanceof KeptRunMisplaced)) throw e;
+    return scanDocumentInChunks(text, false);
+  }
+}
+
+function scanDocumentInChunks(text: string, keepLongValues: boolean): ScannedDocument {
   const parser = new SaxesParser({ position: true });
   const byId = new Map<string, SvgElement>();
   const stack: MutableElement[] = [];
@@ -123,6 +172,11 @@ export function scanDocument(text: string): ScannedDocument {
   let tagStartSearchFrom = 0;
   let entities: Record<string, string> = { ...PREDEFINED_ENTITIES };
   let closing = false;
+  /** Text kept from saxes so far: saxes position + shift = offset in `text`. */
+  let shift = 0;
+  let inStartTag = false;
+  /** Value spans kept from saxes in the current start tag. */
+  const kept: SourceSpan[] = [];
 
   parser.on('doctype', (doctype) => {
     const declared = getDeclaredEntities(doctype);
@@ -133,16 +187,24 @@ export function scanDocument(text: string): ScannedDocument {
     entities = { ...declared, ...PREDEFINED_ENTITIES };
   });
   parser.on('opentagstart', () => {
-    tagStartSearchFrom = parser.position - 1;
+    tagStartSearchFrom = parser.position + shift - 1;
+    inStartTag = true;
   });
   parser.on('opentag', (tag) => {
-    const end = parser.position;
+    inStartTag = false;
+    const end = parser.position + shift;
     const start = Math.max(0, text.lastIndexOf('<', tagStartSearchFrom));
     const rawSpans = getAttributeSpans(text, start, end);
     const attributes = new Map<string, SvgAttribute>();
     for (const [name, value] of Object.entries(tag.attributes as Record<string, string>)) {
       attributes.set(name, { value, span: rawSpans.get(name) ?? { start, end } });
     }
+    for (const span of kept) {
+      const name = [...rawSpans].find(([, s]) => s.start === span.start && s.end === span.end)?.[0];
+      if (name === undefined) throw new KeptRunMisplaced();
+      attributes.set(name, new PlainAttribute(text, rawSpans.get(name)!));
+    }
+    kept.length = 0;
     const element: MutableElement = { name: tag.name, tagSpan: { start, end }, attributes, children: [] };
     const parent = stack[stack.length - 1];
     if (parent) parent.children.push(element);
@@ -158,19 +220,37 @@ export function scanDocument(text: string): ScannedDocument {
     const detail = err.message.replace(/^\d+:\d+: /, '').replace(/\.$/, '');
     // At the end of input saxes reports unclosed elements: point at the innermost open start tag.
     const open = stack[stack.length - 1];
-    const span = closing && open && detail.startsWith('unclosed tag') ? open.tagSpan : getSpanBefore(text, parser.position);
+    const at = parser.position + shift;
+    const span = closing && open && detail.startsWith('unclosed tag') ? open.tagSpan : getSpanBefore(text, at);
     error = { span, detail };
     throw new ScanStopped();
   });
 
+  let written = 0;
   try {
-    parser.write(text);
+    if (keepLongValues) {
+      for (const match of text.matchAll(VALUE_START)) {
+        const open = match.index + match[0].length;
+        if (open < written) continue;
+        const close = text.indexOf(match[0][match[0].length - 1]!, open);
+        if (close < 0) break;
+        if (close - open < LONG_VALUE || !PLAIN_VALUE.test(text.slice(open, close))) continue;
+        parser.write(text.slice(written, open));
+        written = open;
+        if (!inStartTag) continue;
+        kept.push({ start: open, end: close });
+        shift += close - open;
+        written = close;
+      }
+    }
+    parser.write(written === 0 ? text : text.slice(written));
     closing = true;
     parser.close();
   } catch (e) {
+    if (e instanceof KeptRunMisplaced) throw e;
     if (!(e instanceof ScanStopped)) {
       // saxes raised something other than a reported error: keep what was read, say where it stopped.
-      error ??= { span: getSpanBefore(text, parser.position), detail: e instanceof Error ? e.message : String(e) };
+      error ??= { span: getSpanBefore(text, parser.position + shift), detail: e instanceof Error ? e.message : String(e) };
     }
   }
   return { root, byId, entities, error };

@@ -2,6 +2,7 @@ import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
 import type { Arc } from '../../types';
 import { getSegmentEnd } from '../../geometry/bounds';
+import { transformSegment, type Matrix } from '../../geometry/transform';
 import { parsePathData } from './pathData';
 
 // Independent reference: the npm package svg-path-parser (a PEG grammar of SVG 1.1 path data) with
@@ -214,4 +215,28 @@ describe('parsePathData arcs match REFERENCES §5.5', () => {
     expect(norm(deg(a.theta0) - theta1)).toBeCloseTo(0, 9);
     expect(deg(a.sweep)).toBeCloseTo(delta, 9);
   });
+});
+
+describe('parsePathData with a matrix', () => {
+  const path = 'M10 10 C 20 20, 40 20, 50 10 S 80 0, 90 10 L 90 50 Q 70 70 50 50 T 10 50 A 20 10 30 0 1 5 5 '
+    + 'a 3 4 -20 1 0 2 -3 A 0 3 0 0 1 7 7 A 5 5 0 0 1 7 7 h 4 v -2 Z m 1 1 l 2 2 c 1 1 2 2 3 3 s 1 2 3 4 q 1 2 3 4 t 5 5';
+  const matrices: Matrix[] = [[1.7, 0.4, -0.3, 0.9, -3.3, 7], [0, 1, -1, 0, 0, 0], [1, 0, 0, 1, 1500, 1500], [-2, 0, 0, 2, 0, 0]];
+  for (const [m, d] of matrices.flatMap((m) => [path, 'M0 0 L 5 0 A 3 2 10 0 1 9 4', 'M0 0 l 5 0 c 1 1 2 2 3 3'].map((d) => [m, d] as const))) {
+    it(`builds exactly transformSegment of each user-unit segment, close fixes unmapped (${d.slice(0, 12)}…, matrix ${m.join(' ')}; SVG 1.1 §7.15.3)`, () => {
+      const plain = parsePathData(d, 5);
+      const mapped = parsePathData(d, 5, m);
+      expect(mapped.subpaths.length).toBe(plain.subpaths.length);
+      mapped.subpaths.forEach((sub, i) => {
+        const reference = plain.subpaths[i]!;
+        expect(sub.segments).toEqual(reference.segments.map((s) => transformSegment(s, m)));
+        sub.segments.forEach((s, k) => {
+          for (const [key, value] of Object.entries(s)) {
+            if (typeof value === 'number') expect(Object.is(value, (transformSegment(reference.segments[k]!, m) as unknown as Record<string, number>)[key])).toBe(true);
+          }
+        });
+        expect(sub.closeFix).toEqual(reference.closeFix);
+        expect([sub.startX, sub.startY]).toEqual([reference.startX, reference.startY]);
+      });
+    });
+  }
 });

@@ -127,9 +127,6 @@ const LONG_VALUE = 4096;
  */
 const PLAIN_VALUE = /^[\t\n\r\x20\x21\x23-\x25\x28-\x3b\x3d-\x7e]*$/;
 
-/** Where an attribute value may start: `=`, optional whitespace, a quote (XML 1.0 [25] Eq). */
-const VALUE_START = /=[ \t\r\n]*["']/g;
-
 /** An attribute whose value kept from saxes is decoded on first use (attribute-value normalisation). */
 class PlainAttribute implements SvgAttribute {
   private decoded: string | undefined;
@@ -228,20 +225,22 @@ function scanDocumentInChunks(text: string, keepLongValues: boolean): ScannedDoc
 
   let written = 0;
   try {
-    if (keepLongValues) {
-      for (const match of text.matchAll(VALUE_START)) {
-        const open = match.index + match[0].length;
-        if (open < written) continue;
-        const close = text.indexOf(match[0][match[0].length - 1]!, open);
-        if (close < 0) break;
-        if (close - open < LONG_VALUE || !PLAIN_VALUE.test(text.slice(open, close))) continue;
-        parser.write(text.slice(written, open));
-        written = open;
-        if (!inStartTag) continue;
-        kept.push({ start: open, end: close });
-        shift += close - open;
-        written = close;
-      }
+    // Each `=`, optional whitespace and a quote may start a value (XML 1.0 [25] Eq, [10] AttValue).
+    for (let eq = keepLongValues && text.length > LONG_VALUE ? text.indexOf('=') : -1; eq >= 0; eq = text.indexOf('=', eq + 1)) {
+      let open = eq + 1;
+      while (isTagWhitespace(text.charCodeAt(open))) open++;
+      const quote = text[open++];
+      if (quote !== '"' && quote !== "'") continue;
+      const close = text.indexOf(quote, open);
+      if (close < 0) break;
+      if (close - open < LONG_VALUE || !PLAIN_VALUE.test(text.slice(open, close))) continue;
+      parser.write(text.slice(written, open));
+      written = open;
+      eq = close;
+      if (!inStartTag) continue;
+      kept.push({ start: open, end: close });
+      shift += close - open;
+      written = close;
     }
     parser.write(written === 0 ? text : text.slice(written));
     closing = true;

@@ -53,9 +53,9 @@ export interface ParsedPathData {
 
 /**
  * Reads path data. `baseOffset` is the file offset of `d[0]`; every span returned is a file offset.
- * Segments are mapped by `matrix` as they are built (`transformSegment`), so a huge path is not
- * copied a second time. Never throws: the first error ends reading and is returned with what was
- * read before it.
+ * Segments are mapped by `matrix` as they are built (the arithmetic of `transformSegment`, one
+ * object per segment), so a huge path is not copied a second time. Never throws: the first error
+ * ends reading and is returned with what was read before it.
  */
 export function parsePathData(d: string, baseOffset: number, matrix: Matrix | null = null): ParsedPathData {
   const parser = new PathDataParser(d, baseOffset, matrix !== null && !isIdentityMatrix(matrix) ? matrix : null);

@@ -13,13 +13,20 @@ export interface LineIndex {
 
 export function createLineIndex(text: string): LineIndex {
   const starts: number[] = [0];
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
-    if (c === 13 /* \r */) {
-      if (text.charCodeAt(i + 1) === 10) i++;
-      starts.push(i + 1);
-    } else if (c === 10 /* \n */) {
-      starts.push(i + 1);
+  // The next LF and the next CR, each found by indexOf (a native scan) and looked for again only once
+  // passed: a file with no CR is scanned for CR once.
+  let lf = text.indexOf('\n');
+  let cr = text.indexOf('\r');
+  while (lf >= 0 || cr >= 0) {
+    if (cr >= 0 && (lf < 0 || cr < lf)) {
+      const crlf = lf === cr + 1;
+      const next = crlf ? lf + 1 : cr + 1;
+      starts.push(next);
+      if (crlf) lf = text.indexOf('\n', next);
+      cr = text.indexOf('\r', next);
+    } else {
+      starts.push(lf + 1);
+      lf = text.indexOf('\n', lf + 1);
     }
   }
   return {

@@ -86,31 +86,33 @@ describe('getSegmentBounds', () => {
     );
   });
 
-  it('contains every sampled point of random arcs, and sampled points reach each edge (seed 1234)', () => {
-    const coord = fc.double({ min: -50, max: 50, noNaN: true });
-    fc.assert(
-      fc.property(coord, coord, coord, coord, coord, coord, fc.double({ min: -7, max: 7, noNaN: true }), fc.double({ min: -6.2, max: 6.2, noNaN: true }),
-        (cx, cy, ux, uy, vx, vy, t0, sw) => {
-          const a = arc(cx, cy, ux, uy, vx, vy, t0, sw);
-          const box = getSegmentBounds(a);
-          const scale = 1e-9 * (1 + Math.abs(cx) + Math.abs(cy) + Math.hypot(ux, uy) + Math.hypot(vx, vy));
-          const reach = [Infinity, Infinity, -Infinity, -Infinity];
-          let outside = 0;
-          const n = 4000;
-          for (let i = 0; i <= n; i++) {
-            const [x, y] = getSegmentPoint(a, i / n);
-            if (x < box[0] - scale || y < box[1] - scale || x > box[2] + scale || y > box[3] + scale) outside++;
-            reach[0] = Math.min(reach[0]!, x); reach[1] = Math.min(reach[1]!, y);
-            reach[2] = Math.max(reach[2]!, x); reach[3] = Math.max(reach[3]!, y);
-          }
-          expect(outside).toBe(0);
-          // Sampling step Δ ≤ 6.2/4000 in θ: an extremum is missed by at most r(1 − cos(Δ/2)) ≈ r·Δ²/8 ≈ 3e-7·r.
-          const r = Math.hypot(ux, uy) + Math.hypot(vx, vy);
-          reach.forEach((v, i) => expect(Math.abs(v - box[i]!)).toBeLessThanOrEqual(4e-7 * r + scale));
-        }),
-      { seed: 1234, numRuns: 200 },
-    );
-  });
+  for (const [turns, seed] of [[7, 1234], [40, 4321]] as const) {
+    it(`contains every sampled point of random arcs with |theta0| ≤ ${turns}, and sampled points reach each edge (seed ${seed})`, () => {
+      const coord = fc.double({ min: -50, max: 50, noNaN: true });
+      fc.assert(
+        fc.property(coord, coord, coord, coord, coord, coord, fc.double({ min: -turns, max: turns, noNaN: true }), fc.double({ min: -6.2, max: 6.2, noNaN: true }),
+          (cx, cy, ux, uy, vx, vy, t0, sw) => {
+            const a = arc(cx, cy, ux, uy, vx, vy, t0, sw);
+            const box = getSegmentBounds(a);
+            const scale = 1e-9 * (1 + Math.abs(cx) + Math.abs(cy) + Math.hypot(ux, uy) + Math.hypot(vx, vy));
+            const reach = [Infinity, Infinity, -Infinity, -Infinity];
+            let outside = 0;
+            const n = 4000;
+            for (let i = 0; i <= n; i++) {
+              const [x, y] = getSegmentPoint(a, i / n);
+              if (x < box[0] - scale || y < box[1] - scale || x > box[2] + scale || y > box[3] + scale) outside++;
+              reach[0] = Math.min(reach[0]!, x); reach[1] = Math.min(reach[1]!, y);
+              reach[2] = Math.max(reach[2]!, x); reach[3] = Math.max(reach[3]!, y);
+            }
+            expect(outside).toBe(0);
+            // Sampling step Δ ≤ 6.2/4000 in θ: an extremum is missed by at most r(1 − cos(Δ/2)) ≈ r·Δ²/8 ≈ 3e-7·r.
+            const r = Math.hypot(ux, uy) + Math.hypot(vx, vy);
+            reach.forEach((v, i) => expect(Math.abs(v - box[i]!)).toBeLessThanOrEqual(4e-7 * r + scale));
+          }),
+        { seed, numRuns: 200 },
+      );
+    });
+  }
 });
 
 describe('getSegmentPoint, getSegmentStart, getSegmentEnd', () => {

@@ -103,7 +103,11 @@ function isAngleOnArc(a: Arc, theta: number): boolean {
   const turn = 2 * Math.PI;
   if (Math.abs(a.sweep) >= turn) return true;
   const offset = a.sweep >= 0 ? theta - a.theta0 : a.theta0 - theta;
-  const normalised = ((offset % turn) + turn) % turn;
+  // ((offset % turn) + turn) % turn, with the remainders (exact, but a slow library call) taken only
+  // where they change something: x % turn is x for |x| < turn, and s % turn is s − turn (exact) for
+  // turn ≤ s < 2·turn.
+  const shifted = (Math.abs(offset) < turn ? offset : offset % turn) + turn;
+  const normalised = shifted < turn ? shifted : shifted < 2 * turn ? shifted - turn : shifted % turn;
   return normalised <= Math.abs(a.sweep);
 }
 

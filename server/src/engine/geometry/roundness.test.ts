@@ -82,6 +82,54 @@ describe('roundness check values', () => {
   });
 });
 
+describe('smallest enclosing circle', () => {
+  // Reference: Welzl's move-to-front iteration (Welzl 1991, REFERENCES.md §3.3) as roundness.ts had
+  // it, deciding "inside" with Math.hypot; the fast test must take every decision the same way.
+  const welzlWithHypot = (points: readonly (readonly [number, number])[]) => {
+    type C = { x: number; y: number; r: number };
+    const p = [...points];
+    let seed = 12345;
+    for (let i = p.length - 1; i > 0; i--) {
+      seed = (seed * 1103515245 + 12345) & 0x7fffffff;
+      const j = seed % (i + 1);
+      [p[i], p[j]] = [p[j]!, p[i]!];
+    }
+    const inside = (c: C, q: readonly number[]) => Math.hypot(q[0]! - c.x, q[1]! - c.y) <= c.r * (1 + 1e-14) + 1e-300;
+    const two = (a: readonly number[], b: readonly number[]): C => {
+      const x = (a[0]! + b[0]!) / 2, y = (a[1]! + b[1]!) / 2;
+      return { x, y, r: Math.hypot(a[0]! - x, a[1]! - y) };
+    };
+    const three = (a: readonly number[], b: readonly number[], c: readonly number[]): C | null => {
+      const bx = b[0]! - a[0]!, by = b[1]! - a[1]!, cx = c[0]! - a[0]!, cy = c[1]! - a[1]!;
+      const d = 2 * (bx * cy - by * cx);
+      if (d === 0) return null;
+      const b2 = bx * bx + by * by, c2 = cx * cx + cy * cy;
+      const ux = (cy * b2 - by * c2) / d, uy = (bx * c2 - cx * b2) / d;
+      return { x: a[0]! + ux, y: a[1]! + uy, r: Math.hypot(ux, uy) };
+    };
+    let c: C = { x: p[0]![0], y: p[0]![1], r: 0 };
+    for (let i = 1; i < p.length; i++) {
+      if (inside(c, p[i]!)) continue;
+      c = { x: p[i]![0], y: p[i]![1], r: 0 };
+      for (let j = 0; j < i; j++) {
+        if (inside(c, p[j]!)) continue;
+        c = two(p[i]!, p[j]!);
+        for (let k = 0; k < j; k++) if (!inside(c, p[k]!)) c = three(p[i]!, p[j]!, p[k]!) ?? c;
+      }
+    }
+    return c;
+  };
+
+  it('takes the decisions of the Math.hypot test on near-cocircular, repeated and tiny point sets (reference: Welzl with Math.hypot; fast-check, seed 61)', () => {
+    const set = fc.tuple(fc.integer({ min: 1, max: 60 }), fc.double({ min: 1e-200, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 1e-13, noNaN: true }), fc.boolean())
+      .map(([n, r, wobble, repeat]) => Array.from({ length: n }, (_, k) => {
+        const a = repeat ? k % 7 : k * 0.7, rr = r * (1 + wobble * Math.sin(13 * k));
+        return [rr * Math.cos(a), rr * Math.sin(a)] as [number, number];
+      }));
+    fc.assert(fc.property(set, (pts) => { expect(getSmallestEnclosingCircle(pts)).toEqual(welzlWithHypot(pts)); }), { seed: 61, numRuns: 200 });
+  });
+});
+
 describe('inequalities on random shapes (fast-check, seeded)', () => {
   // Star-shaped polygons from sorted angles are simple.
   const starPolygon = fc.array(fc.tuple(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), fc.double({ min: 0.2, max: 5, noNaN: true })), { minLength: 3, maxLength: 16 })
@@ -166,7 +214,7 @@ describe('cell bounds close plateaus and ridges (linear and concave-quadratic pr
 
   it('matches the exact Chebyshev radius on random convex polygons (REFERENCES.md §3.3; fast-check, seed 11)', () => {
     fc.assert(fc.property(convexPolygon, (pts) => {
-      if (pts.length < 3 || getPolylineHull({ points: pts, deviationMm: 0, pieces: [] }).areaMm2 < 0.5) return;
+      if (pts.length < 3 || getPolylineHull(getContourPolyline(polygon(pts), 0)).areaMm2 < 0.5) return;
       const lic = getLargestInscribedCircle(pts);
       const exact = chebyshevRadius(pts);
       expect(lic.capped).toBe(false);
@@ -216,7 +264,8 @@ describe('cell bounds close plateaus and ridges (linear and concave-quadratic pr
     const m = measureContour(c, 'up');
     const [x0, y0, x1, y1] = m.bboxMm;
     const size = Math.hypot(x1 - x0, y1 - y0), slack = 1e-6 * size;
-    const poly = getContourPolyline(c, slack).points;
+    const { xs, ys } = getContourPolyline(c, slack);
+    const poly = Array.from(xs, (x, i) => [x, ys[i]!] as const);
     const n = poly.length;
     const dist = (x: number, y: number) => {
       let d = Infinity, inside = false;

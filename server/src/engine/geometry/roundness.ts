@@ -28,7 +28,7 @@
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getContourPolyline, getPolylineHull, type Polyline } from './hull';
+import { getArcCircle, getContourPolyline, getPolylineHull, type Polyline } from './hull';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -67,7 +67,19 @@ function circleFrom3(a: Pt, b: Pt, c: Pt): Circle | null {
   return { x: a[0] + ux, y: a[1] + uy, r: Math.hypot(ux, uy) };
 }
 
-const inCircle = (c: Circle, p: Pt) => Math.hypot(p[0] - c.x, p[1] - c.y) <= c.r * (1 + 1e-14) + 1e-300;
+/**
+ * |p − C| ≤ r(1 + 1e-14) + 1e-300 with |p − C| as Math.hypot gives it. Math.hypot is several times
+ * slower than a square root, so the squared distance decides first wherever it is off the bound by
+ * more than 1e-12 relative (far beyond the few ulp between them, and where the squares neither
+ * overflow nor vanish); only the rest takes Math.hypot.
+ */
+function inCircle(c: Circle, p: Pt): boolean {
+  const dx = p[0] - c.x, dy = p[1] - c.y, bound = c.r * (1 + 1e-14) + 1e-300;
+  const d2 = dx * dx + dy * dy, b2 = bound * bound;
+  if (d2 < b2 * (1 - 1e-12)) return true;
+  if (d2 > b2 * (1 + 1e-12) && b2 > 0) return false;
+  return Math.hypot(dx, dy) <= bound;
+}
 
 /** Smallest enclosing circle (Welzl 1991, iterative move-to-front form; deterministic shuffle). */
 export function getSmallestEnclosingCircle(points: readonly Pt[]): Circle {
@@ -131,39 +143,47 @@ function outlineFromPoints(points: readonly Pt[], asPoints = false): SearchOutli
   };
 }
 
+/** How many search pieces `outlineFromPolyline` makes: one per circle piece, one per chord of the others. */
+function countSearchPieces(poly: Polyline): number {
+  const first = poly.pieceFirst, pieces = first.length;
+  let count = 0;
+  for (let k = 0; k < pieces; k++) count += poly.pieceOnCircle[k] ? 1 : (k + 1 < pieces ? first[k + 1]! : poly.xs.length) - first[k]!;
+  return count;
+}
+
 /**
  * A flattened contour as search pieces: arcs of circles stay exact arcs (their chords are dropped),
  * everything else is its chords. δ is the largest deviation of a flattened piece or of an arc from
  * its circle, so distances to the outline are within ±δ of distances to the contour.
  */
-function outlineFromPolyline(poly: Polyline): SearchOutline {
-  const pts = poly.points, n = pts.length;
+function outlineFromPolyline(poly: Polyline, contour: Contour, toleranceMm: number): SearchOutline {
+  const { xs, ys, pieceFirst } = poly, n = xs.length, count = pieceFirst.length;
   const pieces: SearchPiece[] = [];
-  let deviation = 0;
-  const endOf = (k: number) => (k + 1 < poly.pieces.length ? poly.pieces[k + 1]!.first : n);
-  poly.pieces.forEach((p, k) => {
-    const end = endOf(k);
-    const [ax, ay] = pts[p.first]!, [bx, by] = pts[end % n]!;
-    const c = p.circle;
+  let deviation = poly.offCircleDeviationMm;
+  const endOf = (k: number) => (k + 1 < count ? pieceFirst[k + 1]! : n);
+  const circleOf = (k: number) => (poly.pieceOnCircle[k] ? getArcCircle(contour.segments[poly.pieceSegment[k]!]!, toleranceMm) : null);
+  for (let k = 0; k < count; k++) {
+    const end = endOf(k), first = pieceFirst[k]!;
+    const ax = xs[first]!, ay = ys[first]!, bx = xs[end % n]!, by = ys[end % n]!;
+    const c = circleOf(k);
     if (c) {
       deviation = Math.max(deviation, c.deviationMm);
       const ccw = (ax - c.cx) * (by - c.cy) - (ay - c.cy) * (bx - c.cx) > 0;
-      const j = (k + 1) % poly.pieces.length;
-      const nc = poly.pieces[j]!.circle;
+      const j = (k + 1) % count;
+      const nc = circleOf(j);
       const span: [number, number, number, number] = [ax, ay, bx, by];
       if (j !== k && nc && nc.cx === c.cx && nc.cy === c.cy && nc.r === c.r) {
-        const [ex, ey] = pts[endOf(j) % n]!;
+        const e = endOf(j) % n, ex = xs[e]!, ey = ys[e]!;
         if (((bx - c.cx) * (ey - c.cy) - (by - c.cy) * (ex - c.cx) > 0) === ccw) { span[2] = ex; span[3] = ey; }
       }
       pieces.push({ ax, ay, bx, by, circle: { cx: c.cx, cy: c.cy, r: c.r, ccw, span } });
-      return;
+      continue;
     }
-    deviation = Math.max(deviation, p.deviationMm);
-    for (let i = p.first; i < end; i++) {
-      const [x0, y0] = pts[i]!, [x1, y1] = pts[(i + 1) % n]!;
-      pieces.push({ ax: x0, ay: y0, bx: x1, by: y1, circle: null });
+    for (let i = first; i < end; i++) {
+      const i1 = (i + 1) % n;
+      pieces.push({ ax: xs[i]!, ay: ys[i]!, bx: xs[i1]!, by: ys[i1]!, circle: null });
     }
-  });
+  }
   return { pieces, deviationMm: deviation };
 }
 
@@ -713,7 +733,8 @@ const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBo
 export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCrossing: boolean): RoundnessFigures {
   const [a, b, c, d] = metrics.bboxMm;
   const size = len(c - a, d - b);
-  const poly = getContourPolyline(contour, ROUNDNESS_FLATTENING_RELATIVE * size);
+  const flatteningMm = ROUNDNESS_FLATTENING_RELATIVE * size;
+  const poly = getContourPolyline(contour, flatteningMm);
   const hullFigures = getPolylineHull(poly);
   const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
     : selfCrossing ? { value: null, reason: 'the contour crosses itself, so its net area is not the material area' }
@@ -738,15 +759,18 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   const circumradius = toCircle(mec.r, mec.x, mec.y, delta);
   let windingSquared: Measured = undef('defined for self-crossing contours only; for a simple contour it equals the area');
   if (selfCrossing) {
-    windingSquared = poly.points.length > MAX_WINDING_INTEGRAL_VERTICES
-      ? undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`)
-      : { value: getWindingSquaredArea(poly.points, findSelfIntersections(polylineContour(contour, poly.points)).intersections.map((x) => x.y)) };
+    if (poly.xs.length > MAX_WINDING_INTEGRAL_VERTICES) windingSquared = undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`);
+    else {
+      const points = Array.from(poly.xs, (x, i): Pt => [x, poly.ys[i]!]);
+      windingSquared = { value: getWindingSquaredArea(points, findSelfIntersections(polylineContour(contour, points)).intersections.map((x) => x.y)) };
+    }
   }
-  const outline = outlineFromPolyline(poly);
-  if (outline.pieces.length > MAX_ROUNDNESS_PIECES) {
-    const why = undef(`the flattened contour has ${outline.pieces.length} pieces, more than the ${MAX_ROUNDNESS_PIECES} searched`);
+  const searchPieces = countSearchPieces(poly);
+  if (searchPieces > MAX_ROUNDNESS_PIECES) {
+    const why = undef(`the flattened contour has ${searchPieces} pieces, more than the ${MAX_ROUNDNESS_PIECES} searched`);
     return { hull, roundness: { inradius: why, circumradius, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: windingSquared } };
   }
+  const outline = outlineFromPolyline(poly, contour, flatteningMm);
   const searchDelta = outline.deviationMm;
   const lic = inscribedCircleOf(outline);
   const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + searchDelta);

@@ -38,7 +38,8 @@ export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
 export const ROUNDNESS_FLATTENING_RELATIVE = 1e-5;
 /** Most cells evaluated by one branch-and-bound search; the bound reached is reported if hit. */
 export const MAX_ROUNDNESS_CELLS = 2000;
-/** Most polyline vertices for the slab integral ∬w² dA (its cost is quadratic). */
+/** Most polyline vertices for the slab integral ∬w² dA (one slab per vertex height, each visiting the
+ *  edges it meets: quadratic for outlines that wind many times). */
 export const MAX_WINDING_INTEGRAL_VERTICES = 20000;
 /** Most search pieces (lines, chords of flattened curves, arcs of circles) for the inradius and
  *  minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS cells queries the piece index, but near
@@ -690,16 +691,30 @@ export function getLargestInscribedCircle(points: readonly Pt[], tolerance?: num
   return inscribedCircleOf(outlineFromPoints(points), tolerance);
 }
 
-/** ∬ w(p)² dA of a closed polyline, exact by horizontal slabs (see the module comment). */
+/**
+ * ∬ w(p)² dA of a closed polyline, exact by horizontal slabs (see the module comment). The edges
+ * crossing a slab's mid-height are found by a sweep upwards over the edges sorted by their lower
+ * end, dropping those it has passed, so each slab visits only the edges it meets. Equal crossing
+ * x's add w²·0 whatever their order, so the sum is the same as over all edges in drawing order.
+ */
 export function getWindingSquaredArea(points: readonly Pt[], extraHeights: readonly number[] = []): number {
   const ys = [...new Set([...points.map((p) => p[1]), ...extraHeights])].sort((a, b) => a - b);
+  const n = points.length;
+  // Edge i runs from the previous point to point i.
+  const from = (i: number) => points[i === 0 ? n - 1 : i - 1]!;
+  const low = (i: number) => Math.min(from(i)[1], points[i]![1]);
+  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => low(i) - low(j));
+  let next = 0;
+  let active: number[] = [];
   let total = 0;
   for (let k = 0; k + 1 < ys.length; k++) {
     const y0 = ys[k]!, y1 = ys[k + 1]!;
     const y = (y0 + y1) / 2;
+    while (next < n && low(order[next]!) <= y) active.push(order[next++]!);
+    active = active.filter((i) => Math.max(from(i)[1], points[i]![1]) > y);
     const xs: [number, number][] = [];
-    for (let i = 0, j = points.length - 1; i < points.length; j = i++) {
-      const a = points[j]!, b = points[i]!;
+    for (const i of active) {
+      const a = from(i), b = points[i]!;
       if ((a[1] > y) === (b[1] > y)) continue;
       const x = a[0] + ((y - a[1]) * (b[0] - a[0])) / (b[1] - a[1]);
       xs.push([x, b[1] > a[1] ? 1 : -1]);

@@ -67,6 +67,19 @@ export function getArcCircle(s: Segment, toleranceMm: number): ArcCircle | null 
   return a - b <= toleranceMm ? { cx: s.cx, cy: s.cy, r: (a + b) / 2, deviationMm: (a - b) / 2 } : null;
 }
 
+/** The last radius and tolerance given to `getHalfChordAngle` and its answer. */
+const lastHalf = { r: Number.NaN, toleranceMm: 0, angle: 0 };
+
+/** Half the angle of a chord with sagitta `toleranceMm` on a circle of radius r (π when r is smaller). */
+function getHalfChordAngle(r: number, toleranceMm: number): number {
+  const c = lastHalf;
+  if (r !== c.r || toleranceMm !== c.toleranceMm) {
+    c.r = r; c.toleranceMm = toleranceMm;
+    c.angle = toleranceMm >= r ? Math.PI : Math.acos(1 - toleranceMm / r);
+  }
+  return c.angle;
+}
+
 /** Most chords for one curved piece: bounds the work on huge curves (the bound δ is then raised and reported). */
 const MAX_CHORDS_PER_PIECE = 4096;
 
@@ -133,7 +146,7 @@ function flattenPiece(w: PolylineWriter, segment: number, i: number, toleranceMm
     const { a, b: bMinor } = getSemiAxes(b[o + 10]!, b[o + 11]!, b[o + 12]!, b[o + 13]!);
     onCircle = a - bMinor <= toleranceMm;
     const dth = Math.abs(b[o + 15]! - b[o + 14]!);
-    const half = toleranceMm >= a ? Math.PI : Math.acos(1 - toleranceMm / a);
+    const half = getHalfChordAngle(a, toleranceMm);
     m = Math.max(1, Math.ceil(dth / (2 * half)));
     if (m > MAX_CHORDS_PER_PIECE) m = MAX_CHORDS_PER_PIECE;
     pieceDeviation = a * (1 - Math.cos(dth / (2 * m)));

@@ -57,6 +57,13 @@ describe('writeSegmentPieces', () => {
     expect(SEGMENT_PIECES[7]).toBe(1);
   });
 
+  it('tells semi-diameter components −0 from +0 when it reuses the last arc\'s turning angles (reference: buildPieces)', () => {
+    // atan2(0, −1) = π but atan2(−0, −1) = −π, and buildPieces tries nine turns from each: over
+    // θ ∈ (12, 15) the first arc is cut at 4π, the second is not cut.
+    expectSameAsBuildPieces(arc(0, 0, -1, 0, 0, 1, 12, 3));
+    expectSameAsBuildPieces(arc(0, 0, -1, -0, -0, 1, 12, 3));
+  });
+
   it('writes no piece for a segment that is a single point, as buildPieces leaves it out (reference: buildPieces)', () => {
     for (const s of [line(1, 2, 1, 2), cubic(1, 2, 1, 2, 1, 2, 1, 2), arc(1, 2, 0, 0, 0, 0, 0, 1), arc(1, 2, 1, 0, 0, 1, 0.5, 0)]) {
       expect(writeSegmentPieces(s)).toBe(0);

@@ -132,10 +132,20 @@ function writeBezier(s: Segment & { kind: 'quad' | 'cubic' }): number {
   return cutCount + 1;
 }
 
+/** The last semi-diameters seen by `writeArc` and the angles where x′ and y′ vanish for them: the
+ *  arcs of one drawing often share their semi-diameters, and atan2 is a large part of an arc's cost. */
+const lastTurns = { ux: Number.NaN, uy: 0, vx: 0, vy: 0, x: 0, y: 0 };
+
 function writeArc(s: Segment & { kind: 'arc' }): number {
   const { ux, uy, vx, vy, theta0, sweep } = s;
+  const turns = lastTurns;
+  // Object.is: atan2 tells −0 from +0.
+  if (!(Object.is(ux, turns.ux) && Object.is(uy, turns.uy) && Object.is(vx, turns.vx) && Object.is(vy, turns.vy))) {
+    turns.ux = ux; turns.uy = uy; turns.vx = vx; turns.vy = vy;
+    turns.x = Math.atan2(vx, ux); turns.y = Math.atan2(vy, uy);
+  }
   for (let axis = 0; axis < 2; axis++) {
-    const base = axis === 0 ? Math.atan2(vx, ux) : Math.atan2(vy, uy);
+    const base = axis === 0 ? turns.x : turns.y;
     for (let k = -4; k <= 4; k++) {
       const f = (base + k * Math.PI - theta0) / sweep;
       if (f > 1e-12 && f < 1 - 1e-12) cuts[cutCount++] = f;

@@ -106,9 +106,9 @@ class PolylineWriter {
   }
 }
 
-/** A copy half as long again (a huge contour's vertex count is not known before it is flattened). */
+/** A copy twice as long (a contour's vertex count is not known before it is flattened). */
 function grow<T extends Float64Array | Int32Array | Uint8Array>(a: T): T {
-  const b = new (a.constructor as new (n: number) => T)(a.length + (a.length >> 1) + 16);
+  const b = new (a.constructor as new (n: number) => T)(2 * a.length);
   b.set(a);
   return b;
 }
@@ -183,7 +183,7 @@ function flattenPiece(w: PolylineWriter, segment: number, i: number, toleranceMm
  */
 export function getContourPolyline(contour: Contour, toleranceMm: number): Polyline {
   const segments = contour.segments;
-  const w = new PolylineWriter(segments.length + (segments.length >> 2) + 16);
+  const w = new PolylineWriter(segments.length + (segments.length >> 2) + 64);
   let deviation = 0, offCircle = 0;
   let lastX = contour.startX, lastY = contour.startY;
   for (let si = 0; si < segments.length; si++) {
@@ -254,7 +254,7 @@ function eliminateOutside(
       if (o2 > 0) spill[fromF++] = i;
       else if (o1 === 0 || o2 === 0) kept.push(i);
     }
-    idx.set(spill.subarray(0, fromF), toF);
+    for (let k = 0; k < fromF; k++) idx[toF + k] = spill[k]!;
     edges.push(p, f, lo, toF, f, q, toF, toF + fromF);
   }
 }
@@ -282,7 +282,7 @@ function getHullCandidatesFrom(xs: Float64Array, ys: Float64Array, points: Int32
     else if (o < 0) spill[above++] = i;
     else kept.push(i);
   }
-  idx.set(spill.subarray(0, above), below);
+  for (let k = 0; k < above; k++) idx[below + k] = spill[k]!;
   eliminateOutside(xs, ys, idx, spill, kept, [a, b, 0, below, b, a, below, below + above]);
   return kept;
 }
@@ -293,7 +293,9 @@ function pseudoAngle(dx: number, dy: number): number {
   return dx >= 0 ? (r >= 0 ? r : 4 + r) : 2 - r;
 }
 
-/** Below this many points Quickhull starts from the two extremes; above, from a sample's hull. */
+/** Below this many points all of them go to Andrew's chain (an outline this small is mostly hull:
+ *  elimination would cost more than it saves); above, Quickhull's elimination starts from a sample's
+ *  hull. */
 const HULL_SAMPLE_FROM = 4096;
 /** Points in that sample. */
 const HULL_SAMPLE = 2048;
@@ -308,8 +310,8 @@ const HULL_SAMPLE = 2048;
  * point on an edge, a wrong guess) it is kept.
  */
 function getHullCandidates(xs: Float64Array, ys: Float64Array, n: number): number[] {
-  const all = () => Int32Array.from({ length: n }, (_, i) => i);
-  if (n < HULL_SAMPLE_FROM) return getHullCandidatesFrom(xs, ys, all());
+  const all = () => { const a = new Int32Array(n); for (let i = 0; i < n; i++) a[i] = i; return a; };
+  if (n < HULL_SAMPLE_FROM) return Array.from(all());
   const step = Math.floor(n / HULL_SAMPLE);
   const sample = Int32Array.from({ length: Math.ceil(n / step) }, (_, k) => k * step);
   const q = getHullIndices(xs, ys, getHullCandidatesFrom(xs, ys, sample));

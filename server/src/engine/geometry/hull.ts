@@ -2,7 +2,7 @@
  * Convex hull of a contour and the contour as a polyline with a stated deviation bound (used by
  * roundness.ts and by the Banchoff–Pohl integral).
  *
- * Flattening, per monotone piece (segmentPieces.ts): lines are kept exactly; a Bézier piece gets m
+ * Flattening, per monotone piece (intersectPieces.ts `writeSegmentPieces`): lines are kept exactly; a Bézier piece gets m
  * chords with m from Wang's formula m ≥ √(d(d−1)·M/(8δ)) (REFERENCES.md §4.6), an arc piece m chords
  * with sagitta r(1 − cos(Δθ/2m)) ≤ δ (r = the larger semi-diameter). Every curve point is then within
  * δ of the polyline and vice versa. The polyline is kept in flat arrays and built one segment at a
@@ -13,8 +13,7 @@
  */
 import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
-import { getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, STRIDE } from './intersectPieces';
-import { SEGMENT_PIECES, writeSegmentPieces } from './segmentPieces';
+import { getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
 
 /**
  * A contour flattened into a closed polyline, in flat arrays (a huge contour has millions of

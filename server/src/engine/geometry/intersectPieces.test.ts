@@ -1,6 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { buildPieces, KIND_ARC, KIND_CUBIC, KIND_LINE, STRIDE } from './intersectPieces';
-import { circleArcs, contourFromSegments, cubic, line } from '../../../../test/support/shapes';
+import type { Segment } from '../types';
+import { buildPieces, getPiecePoint, KIND_ARC, KIND_CUBIC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
+import { arc, circleArcs, contourFromSegments, cubic, line, quad } from '../../../../test/support/shapes';
 
 describe('buildPieces', () => {
   // The loop cubic (0,0),(3,3),(−1,3),(2,0): x(t) = 9t − 21t² + 14t³, so x′ = 9 − 42t + 42t² = 0 at
@@ -69,5 +71,80 @@ describe('buildPieces', () => {
     expect(P.bbox).toEqual([0, 0, 11, 12]);
     // Extents 4 and 3, closing gap 5; extent 2 and end-to-start gap √5 (by hand).
     expect(P.minKeptExtent).toBe(2);
+  });
+});
+
+// Coordinates on a coarse grid make equal, collinear and axis-parallel control points common, which
+// is where cuts appear, merge or vanish; wide doubles cover the general case.
+const coordinate = fc.oneof(fc.integer({ min: -4, max: 4 }), fc.double({ min: -1e3, max: 1e3, noNaN: true }));
+const point = fc.tuple(coordinate, coordinate);
+const anySegment: fc.Arbitrary<Segment> = fc.oneof(
+  fc.tuple(point, point).map(([a, b]) => line(a[0], a[1], b[0], b[1])),
+  fc.tuple(point, point, point).map(([a, b, c]) => quad(a[0], a[1], b[0], b[1], c[0], c[1])),
+  fc.tuple(point, point, point, point).map(([a, b, c, d]) => cubic(a[0], a[1], b[0], b[1], c[0], c[1], d[0], d[1])),
+  fc.tuple(point, point, point, fc.double({ min: -7, max: 7, noNaN: true }), fc.double({ min: -2 * Math.PI, max: 2 * Math.PI, noNaN: true }))
+    .map(([c, u, v, t0, sweep]) => arc(c[0], c[1], u[0], u[1], v[0], v[1], t0, sweep)),
+);
+
+/** The fields each kind of piece uses (the module's layout); the reused buffer keeps stale values in the rest. */
+const FIELDS: Record<number, readonly number[]> = {
+  [KIND_LINE]: [0, 1, 2, 3, 4, 5, 6, 7],
+  [KIND_QUAD]: [0, 1, 2, 3, 4, 5, 6, 7, 8, 9],
+  [KIND_CUBIC]: [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11],
+  [KIND_ARC]: [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15],
+};
+
+/** Largest step against the piece's overall direction, per axis, over 64 samples. */
+function worstTurnBack(buf: Float64Array, i: number): number {
+  const [sx, sy] = getPiecePoint(buf, i, 0), [ex, ey] = getPiecePoint(buf, i, 1);
+  const dirX = Math.sign(ex - sx), dirY = Math.sign(ey - sy);
+  let worst = 0, [px, py] = [sx, sy];
+  for (let k = 1; k <= 64; k++) {
+    const [x, y] = getPiecePoint(buf, i, k / 64);
+    if (dirX !== 0) worst = Math.max(worst, -(x - px) * dirX);
+    if (dirY !== 0) worst = Math.max(worst, -(y - py) * dirY);
+    [px, py] = [x, y];
+  }
+  return worst;
+}
+
+describe('writeSegmentPieces', () => {
+  it('writes, for one segment, exactly the pieces buildPieces writes for it (reference: buildPieces; fast-check, seed 41)', () => {
+    fc.assert(fc.property(anySegment, (s) => {
+      const P = buildPieces([contourFromSegments([s], false)], 0);
+      const count = writeSegmentPieces(s);
+      expect(count).toBe(P.count);
+      for (let i = 0; i < count; i++) {
+        const o = i * STRIDE;
+        for (const f of FIELDS[P.buf[o]!]!) expect(Object.is(SEGMENT_PIECES[o + f], P.buf[o + f]), `piece ${i} field ${f}`).toBe(true);
+      }
+    }), { seed: 41, numRuns: 1000 });
+  });
+
+  it('cuts every segment into pieces monotone in x and y, nearly flat monotone cubics (whose root search is skipped) included: no sample turns back beyond rounding (the module invariant; fast-check, seed 43)', () => {
+    // Control differences of one sign, some of them down to 1e-15 of the others.
+    const difference = fc.oneof(fc.double({ min: 1e-15, max: 1e-11, noNaN: true }), fc.double({ min: 0.1, max: 10, noNaN: true }));
+    const monotone = fc.tuple(fc.array(difference, { minLength: 6, maxLength: 6 }), fc.boolean(), fc.boolean()).map(([d, sx, sy]) => {
+      const ex = sx ? 1 : -1, ey = sy ? 1 : -1;
+      return cubic(0, 0, ex * d[0]!, ey * d[1]!, ex * (d[0]! + d[2]!), ey * (d[1]! + d[3]!), ex * (d[0]! + d[2]! + d[4]!), ey * (d[1]! + d[3]! + d[5]!));
+    });
+    fc.assert(fc.property(fc.oneof(anySegment, monotone), (s) => {
+      const count = writeSegmentPieces(s);
+      const scale = Math.max(1, ...Array.from(SEGMENT_PIECES.subarray(0, count * STRIDE), Math.abs));
+      for (let i = 0; i < count; i++) expect(worstTurnBack(SEGMENT_PIECES, i)).toBeLessThanOrEqual(1e-12 * scale);
+    }), { seed: 43, numRuns: 3000 });
+  });
+
+  it('cuts a cubic at its x and y turning points: the unit circle quarter from (1, 0) to (−1, 0) has one at t = 1/2 (by hand)', () => {
+    expect(writeSegmentPieces(cubic(1, 0, 1, 4 / 3, -1, 4 / 3, -1, 0))).toBe(2);
+    expect(SEGMENT_PIECES[6]).toBe(0);
+    expect(SEGMENT_PIECES[7]).toBe(1);
+  });
+
+  it('writes no piece for a segment that is a single point, as buildPieces leaves it out', () => {
+    for (const s of [line(1, 2, 1, 2), cubic(1, 2, 1, 2, 1, 2, 1, 2), arc(1, 2, 0, 0, 0, 0, 0, 1), arc(1, 2, 1, 0, 0, 1, 0.5, 0)]) {
+      expect(writeSegmentPieces(s)).toBe(0);
+      expect(buildPieces([contourFromSegments([s], false)], 0).count).toBe(0);
+    }
   });
 });

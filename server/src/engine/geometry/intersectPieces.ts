@@ -50,7 +50,7 @@ export interface Pieces {
  * plus half as many again for cuts, and grows by half when a drawing needs more; the untouched tail
  * of a fresh zeroed buffer costs address space, not memory (its pages are never touched).
  */
-class PieceWriter {
+export class PieceWriter {
   buf: Float64Array;
   contourOf: Int32Array;
   count = 0;
@@ -105,10 +105,23 @@ function sortSplits(ts: number[], from: number): void {
   if (n < ts.length) ts.length = n;
 }
 
+/**
+ * Whether control-coordinate differences all have one strict sign, each above 1e-12 of the largest:
+ * then the derivative (a convex combination of them in Bernstein form) stays above that share on
+ * [0, 1], far beyond the ~40 ulp of rounding in its power form and its evaluation, so the root
+ * search of `addDerivativeRoots` finds nothing and can be skipped. [floating-point error analysis,
+ * Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., §5.1 (Horner) — from memory]
+ */
+function isStrictlyMonotone(d0: number, d1: number, d2: number): boolean {
+  const lo = Math.min(d0, d1, d2), hi = Math.max(d0, d1, d2);
+  return lo > 1e-12 * hi || hi < 1e-12 * lo;
+}
+
 /** Appends to `cuts` the parameters in (0, 1) where a Bézier stops being monotone, sorted. */
 function addBezierCuts(cuts: number[], s: Segment & { kind: 'quad' | 'cubic' }): void {
   const from = cuts.length;
   if (s.kind === 'cubic') {
+    if (isStrictlyMonotone(s.x1 - s.x0, s.x2 - s.x1, s.x3 - s.x2) && isStrictlyMonotone(s.y1 - s.y0, s.y2 - s.y1, s.y3 - s.y2)) return;
     // B′(t)/3 = (p1−p0)(1−t)² + 2(p2−p1)t(1−t) + (p3−p2)t², in powers of t, per coordinate:
     const d = DERIVATIVE;
     let a = s.x1 - s.x0, b = s.x2 - s.x1, c = s.x3 - s.x2;
@@ -247,7 +260,7 @@ function addLine(w: PieceWriter, contour: number, seg: number, x0: number, y0: n
 }
 
 /** Size of a segment's control polygon seen from its start: 0 means the segment is a single point. */
-function controlExtent(s: Segment): number {
+export function controlExtent(s: Segment): number {
   const x0 = s.x0, y0 = s.y0;
   switch (s.kind) {
     case 'arc': {
@@ -264,6 +277,49 @@ function controlExtent(s: Segment): number {
         Math.abs(s.x3 - x0), Math.abs(s.y3 - y0),
       );
   }
+}
+
+/** Writes the monotone pieces of segment `seg` of contour `contour`, using `cuts` as scratch (appended to). */
+function addSegmentPieces(w: PieceWriter, contour: number, seg: number, s: Segment, cuts: number[]): void {
+  const cut = cuts.length;
+  switch (s.kind) {
+    case 'line': addLine(w, contour, seg, s.x0, s.y0, s.x1, s.y1); break;
+    case 'quad': addBezierCuts(cuts, s); addQuad(w, contour, seg, s, cuts, cut, cuts.length); break;
+    case 'cubic': addBezierCuts(cuts, s); addCubic(w, contour, seg, s, cuts, cut, cuts.length); break;
+    case 'arc':
+      if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) {
+        addLine(w, contour, seg, s.x0, s.y0, s.x1, s.y1);
+      } else {
+        addArcCuts(cuts, s);
+        addArc(w, contour, seg, s, cuts, cut, cuts.length);
+      }
+      break;
+  }
+}
+
+/**
+ * Most pieces of one segment: a cubic has at most 4 cuts, an arc at most the 9 turns per axis that
+ * addAngleCuts tries, so the writer below never grows and SEGMENT_PIECES stays its buffer.
+ */
+const MAX_SEGMENT_PIECES = 20;
+const segmentWriter = new PieceWriter(MAX_SEGMENT_PIECES);
+const segmentCuts: number[] = [];
+
+/** Output of `writeSegmentPieces`, in the layout above (overwritten by every call). */
+export const SEGMENT_PIECES = segmentWriter.buf;
+
+/**
+ * Writes the monotone pieces of one segment alone into SEGMENT_PIECES (from position 0), exactly
+ * those `buildPieces` writes for it, and returns how many: 0 for a segment whose control points all
+ * equal its start (`buildPieces` leaves those out even with `pointTol` = 0). For flattening huge
+ * contours without building the file-wide piece buffer.
+ */
+export function writeSegmentPieces(s: Segment): number {
+  if (controlExtent(s) <= 0) return 0;
+  segmentWriter.count = 0;
+  segmentCuts.length = 0;
+  addSegmentPieces(segmentWriter, 0, 0, s, segmentCuts);
+  return segmentWriter.count;
 }
 
 /**
@@ -290,20 +346,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
       if (extent <= pointTol) continue;
       minKept = Math.min(minKept, extent);
       const from = w.count;
-      const cut = cuts.length;
-      switch (s.kind) {
-        case 'line': addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1); break;
-        case 'quad': addBezierCuts(cuts, s); addQuad(w, ci, si, s, cuts, cut, cuts.length); break;
-        case 'cubic': addBezierCuts(cuts, s); addCubic(w, ci, si, s, cuts, cut, cuts.length); break;
-        case 'arc':
-          if (Math.abs(s.ux * s.vy - s.uy * s.vx) === 0) {
-            addLine(w, ci, si, s.x0, s.y0, s.x1, s.y1);
-          } else {
-            addArcCuts(cuts, s);
-            addArc(w, ci, si, s, cuts, cut, cuts.length);
-          }
-          break;
-      }
+      addSegmentPieces(w, ci, si, s, cuts);
       const b = w.buf;
       for (let i = from; i < w.count; i++) {
         const o = i * STRIDE;

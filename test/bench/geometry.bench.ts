@@ -8,10 +8,12 @@
  * - ours: `analyze()` — read, measures, self-intersections, double cuts, nesting, roundness and hull,
  *   the checks;
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
- * Printed: median times, ours/floor and paper/ours, crossing counts (the contour has none), and the
- * log-log slope of ours from 1e4 to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3×
- * ours, slope ≤ 1.1. The machine is noisy: compare ratios, not absolute times between runs.
- * Paper at 1e6 takes ~12 s a run, so it runs once there; set LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
+ * Each contender is warmed up alike first (10 calls at 1e4, 2 at 1e5, 1 at 1e6), then timed: median
+ * of 5 runs at 1e4, 3 at 1e5, 1 at 1e6 (paper one run from 1e5). Printed: median times, ours/floor and
+ * paper/ours, crossing counts (the contour has none), and the log-log slope of ours from 1e4 to 1e6
+ * (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
+ * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
+ * LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
  */
 import paper from 'paper';
 import { SaxesParser } from 'saxes';
@@ -101,11 +103,14 @@ for (const n of sizes) {
   for (const kind of kinds) {
     const d = makePathData(n, kind);
     const text = wrap(d);
-    const runs = n >= 1e6 ? 1 : 3;
-    ours(text); // warm-up: the first call compiles the hot paths
+    const runs = n >= 1e6 ? 1 : n >= 1e5 ? 3 : 5;
+    // Warm-up of all three alike until the optimising compiler is done with the hot paths: at 1e4 one
+    // warm-up call leaves ours ~5× above its steady state (measured: 90, 54, 44, 68, 33, 15, 9, 11 ms).
+    const warmUps = n >= 1e6 ? 1 : n >= 1e5 ? 2 : 10;
+    for (let i = 0; i < warmUps; i++) { floor(text); ours(text); if (n < 1e5) paperFull(d); }
     const fl = time(runs, () => floor(text));
     const us = time(runs, () => ours(text));
-    const pa = time(n >= 1e5 ? 1 : 3, () => paperFull(d));
+    const pa = time(n >= 1e5 ? 1 : runs, () => paperFull(d));
     oursMs.set(`${kind} ${n}`, us.ms);
     console.log(
       `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +

@@ -1,6 +1,7 @@
 import { getSegmentEnd, getSegmentLength } from '../geometry/measure';
 import { ZERO_LENGTH_MM } from '../geometry/tolerances';
 import { defineCheck } from './defineCheck';
+import { getVectorLength } from '../geometry/length';
 
 /** A segment that goes nowhere: a repeated point. Machines may pause on it and leave a burn mark. */
 export default defineCheck({
@@ -15,7 +16,7 @@ export default defineCheck({
       for (const segment of contour.segments) {
         // A curve is never shorter than its chord, so only a segment whose ends (nearly) meet needs its length.
         const [ex, ey] = getSegmentEnd(segment);
-        if (Math.hypot(ex - segment.x0, ey - segment.y0) >= ZERO_LENGTH_MM) continue;
+        if (getVectorLength(ex - segment.x0, ey - segment.y0) >= ZERO_LENGTH_MM) continue;
         const lengthMm = getSegmentLength(segment);
         if (lengthMm >= ZERO_LENGTH_MM) continue;
         ctx.report({ messageId: 'zero', span: segment.span, contour: contour.index, data: { contour: contour.index, lengthMm } });

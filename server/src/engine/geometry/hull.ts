@@ -14,6 +14,7 @@
 import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
 import { getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
+import { getVectorLength } from './length';
 
 /**
  * A contour flattened into a closed polyline, in flat arrays (a huge contour has millions of
@@ -41,7 +42,7 @@ export interface Polyline {
 export interface ArcCircle { readonly cx: number; readonly cy: number; readonly r: number; readonly deviationMm: number }
 
 /** The last semi-diameters given to `getSemiAxes` and its answer: the arcs of one drawing often
- *  share them, and Math.hypot costs as much as the rest of an arc's flattening. */
+ *  share them, so their square roots are taken once. */
 const lastAxes = { ux: Number.NaN, uy: 0, vx: 0, vy: 0, a: 0, b: 0 };
 
 /** Semi-axes a ≥ b of the ellipse with conjugate semi-diameters U and V: square roots of the
@@ -50,7 +51,7 @@ function getSemiAxes(ux: number, uy: number, vx: number, vy: number): typeof las
   const c = lastAxes;
   if (ux === c.ux && uy === c.uy && vx === c.vx && vy === c.vy) return c;
   const uu = ux * ux + uy * uy, vv = vx * vx + vy * vy, uv = ux * vx + uy * vy;
-  const root = Math.hypot((uu - vv) / 2, uv);
+  const root = getVectorLength((uu - vv) / 2, uv);
   c.ux = ux; c.uy = uy; c.vx = vx; c.vy = vy;
   c.a = Math.sqrt((uu + vv) / 2 + root); c.b = Math.sqrt(Math.max(0, (uu + vv) / 2 - root));
   return c;
@@ -112,9 +113,9 @@ function grow<T extends Float64Array | Int32Array | Uint8Array>(a: T): T {
   return b;
 }
 
-/** A Bézier's M by Math.hypot, as the module comment defines it ((cx, cy) unused for a quadratic). */
+/** A Bézier's M by getVectorLength (Math.hypot's value), as the module comment defines it ((cx, cy) unused for a quadratic). */
 function getExactM(quad: boolean, ax: number, ay: number, cx: number, cy: number): number {
-  return quad ? Math.max(0, Math.hypot(ax, ay)) : Math.max(Math.max(0, Math.hypot(ax, ay)), Math.hypot(cx, cy));
+  return quad ? Math.max(0, getVectorLength(ax, ay)) : Math.max(Math.max(0, getVectorLength(ax, ay)), getVectorLength(cx, cy));
 }
 
 /**
@@ -132,8 +133,8 @@ function getBezierChords(K: number, M: number, toleranceMm: number): number {
 /**
  * Flattens piece i of SEGMENT_PIECES (from segment `segment`) into the writer and returns its
  * deviation: exact (as the module comment defines it) when it may exceed `floor`, else possibly a
- * few ulp off. A Bézier's M takes two Math.hypot calls, the bulk of flattening a huge contour, so
- * M is first taken as √(x² + y²) and redone with Math.hypot only where the result could differ.
+ * few ulp off. M is first taken as √(x² + y²), cheaper still than getVectorLength (Math.hypot's
+ * value), and redone with it only where the result could differ.
  */
 function flattenPiece(w: PolylineWriter, segment: number, i: number, toleranceMm: number, floor: number): number {
   const b = SEGMENT_PIECES, o = i * STRIDE;
@@ -205,7 +206,7 @@ export function getContourPolyline(contour: Contour, toleranceMm: number): Polyl
     const o = (count - 1) * STRIDE;
     lastX = SEGMENT_PIECES[o + 6]!; lastY = SEGMENT_PIECES[o + 7]!;
   }
-  if (Math.hypot(lastX - contour.startX, lastY - contour.startY) > 0) {
+  if (getVectorLength(lastX - contour.startX, lastY - contour.startY) > 0) {
     w.addPiece(-1, false);
     w.addPoint(lastX, lastY);
   }
@@ -429,7 +430,7 @@ export function getPolylineHull(poly: Polyline): HullFigures {
   for (let i = 0; i < h.length; i++) {
     const [x0, y0] = h[i]!, [x1, y1] = h[(i + 1) % h.length]!;
     a += (x0 - ox) * (y1 - oy) - (x1 - ox) * (y0 - oy);
-    per += Math.hypot(x1 - x0, y1 - y0);
+    per += getVectorLength(x1 - x0, y1 - y0);
   }
   const d = poly.deviationMm;
   return { areaMm2: Math.abs(a) / 2, perimeterMm: h.length > 1 ? per : 0, areaErrorMm2: d * per + Math.PI * d * d, perimeterErrorMm: 2 * Math.PI * d, points: h };

@@ -34,7 +34,7 @@ import {
 } from './intersectPieces';
 import { getBezierPowerCoefficients, getPolynomialRoots } from './intersectRoots';
 import { findPiecePairs } from './piecePairs';
-import { getSegmentLength } from './length';
+import { getSegmentLength, getVectorLength } from './length';
 
 /** Relative geometric tolerance: "same point" is 1e-9 of the outline's bounding-box diagonal.
  *  Quantity: length · relative to the drawing. Source: REFERENCES.md §7.3 (abs = 1e-9·diagonal). */
@@ -191,7 +191,7 @@ function collinearLines(
     col.hits.push({ pa: i, ua: clamp01(ta(lo)), pb: j, ub: clamp01(tb(lo)), x, y, transversal: false });
     return;
   }
-  const lenA = Math.hypot(qx - px, qy - py);
+  const lenA = getVectorLength(qx - px, qy - py);
   const length = (lenA * (hi - lo)) / Math.abs(a1 - a0);
   const u0 = clamp01(ta(lo)), u1 = clamp01(ta(hi));
   col.overlaps.push({ pa: i, a0: Math.min(u0, u1), a1: Math.max(u0, u1), pb: j, b0: Math.min(clamp01(tb(lo)), clamp01(tb(hi))), b1: Math.max(clamp01(tb(lo)), clamp01(tb(hi))), length });
@@ -211,7 +211,7 @@ function pushLineCurveHit(col: Collector, li: number, ci: number, u: number, lin
   const o = li * STRIDE;
   const [x, y] = getPiecePoint(b, ci, u);
   const px = b[o + 4]!, py = b[o + 5]!, qx = b[o + 6]!, qy = b[o + 7]!;
-  const len = Math.hypot(qx - px, qy - py);
+  const len = getVectorLength(qx - px, qy - py);
   const s = project(px, py, qx, qy, x, y);
   const slack = col.eps / len;
   if (s < -slack || s > 1 + slack) return;
@@ -223,7 +223,7 @@ function lineBezier(col: Collector, li: number, ci: number, lineFirst: boolean):
   const b = col.P.buf;
   const o = li * STRIDE;
   const px = b[o + 4]!, py = b[o + 5]!, dx = b[o + 6]! - px, dy = b[o + 7]! - py;
-  const len = Math.hypot(dx, dy);
+  const len = getVectorLength(dx, dy);
   const { xs, ys } = pieceControls(b, ci);
   // Signed distance × len of the curve from the line: dx·(y − py) − dy·(x − px), a polynomial in u.
   const ds = xs.map((x, k) => dx * (ys[k]! - py) - dy * (x - px));
@@ -238,7 +238,7 @@ function lineBezier(col: Collector, li: number, ci: number, lineFirst: boolean):
 
 function curveHull(xs: number[], ys: number[]): number {
   let m = 0;
-  for (let k = 1; k < xs.length; k++) m += Math.hypot(xs[k]! - xs[k - 1]!, ys[k]! - ys[k - 1]!);
+  for (let k = 1; k < xs.length; k++) m += getVectorLength(xs[k]! - xs[k - 1]!, ys[k]! - ys[k - 1]!);
   return m;
 }
 
@@ -257,7 +257,7 @@ function curveOnLine(col: Collector, li: number, ci: number, lineFirst: boolean)
   const s1 = project(px, py, qx, qy, b[q + 6]!, b[q + 7]!);
   const lo = Math.max(0, Math.min(s0, s1)), hi = Math.min(1, Math.max(s0, s1));
   if (lo > hi) return;
-  const len = Math.hypot(qx - px, qy - py);
+  const len = getVectorLength(qx - px, qy - py);
   if ((hi - lo) * len <= col.eps) {
     pushLineCurveHit(col, li, ci, s0 < s1 ? (lo === s0 ? 0 : 1) : lo === s1 ? 1 : 0, lineFirst);
     return;
@@ -278,11 +278,11 @@ function lineArc(col: Collector, li: number, ai: number, lineFirst: boolean): vo
   const [ax, ay] = toFrame(b[o + 4]!, b[o + 5]!);
   const [bx, by] = toFrame(b[o + 6]!, b[o + 7]!);
   const dx = bx - ax, dy = by - ay;
-  const sMin = Math.min(Math.hypot(ux, uy), Math.hypot(vx, vy), Math.abs(det) / Math.max(Math.hypot(ux, uy), Math.hypot(vx, vy)));
+  const sMin = Math.min(getVectorLength(ux, uy), getVectorLength(vx, vy), Math.abs(det) / Math.max(getVectorLength(ux, uy), getVectorLength(vx, vy)));
   const epsFrame = col.eps / sMin;
-  const len = Math.hypot(b[o + 6]! - b[o + 4]!, b[o + 7]! - b[o + 5]!);
+  const len = getVectorLength(b[o + 6]! - b[o + 4]!, b[o + 7]! - b[o + 5]!);
   const slack = col.eps / len;
-  const roots = getPolynomialRoots([ax * ax + ay * ay - 1, 2 * (ax * dx + ay * dy), dx * dx + dy * dy], -slack, 1 + slack, 2 * epsFrame * Math.hypot(dx, dy) * Math.max(1, Math.hypot(dx, dy)));
+  const roots = getPolynomialRoots([ax * ax + ay * ay - 1, 2 * (ax * dx + ay * dy), dx * dx + dy * dy], -slack, 1 + slack, 2 * epsFrame * getVectorLength(dx, dy) * Math.max(1, getVectorLength(dx, dy)));
   const th0 = b[q + 14]!, th1 = b[q + 15]!;
   for (const s of mergeRoots(roots)) {
     const fx = ax + dx * s, fy = ay + dy * s;
@@ -365,7 +365,7 @@ function coEllipticArcs(col: Collector, i: number, j: number): boolean {
   const f = (x: number, y: number): [number, number] => [(x * vy - y * vx) / det, (-x * uy + y * ux) / det];
   const [a1, a2] = f(b[q + 10]!, b[q + 11]!);
   const [b1, b2] = f(b[q + 12]!, b[q + 13]!);
-  const r = Math.max(Math.hypot(ux, uy), Math.hypot(vx, vy));
+  const r = Math.max(getVectorLength(ux, uy), getVectorLength(vx, vy));
   const tol = eps / r;
   if (Math.abs(a1 * a1 + a2 * a2 - 1) > tol || Math.abs(b1 * b1 + b2 * b2 - 1) > tol || Math.abs(a1 * b1 + a2 * b2) > tol) return false;
   // Angles of the other piece's ends in this frame.
@@ -458,7 +458,7 @@ function curveCurve(col: Collector, i: number, j: number): void {
       const u = 0.5 * (c[0]! + c[1]!), v = 0.5 * (c[2]! + c[3]!);
       const [ax, ay] = getPiecePoint(buf, i, u);
       const [bx, by] = getPiecePoint(buf, j, v);
-      const d = Math.hypot(ax - bx, ay - by);
+      const d = getVectorLength(ax - bx, ay - by);
       if (d < best.d) best = { u, v, d };
     }
     const [u, v] = polish(buf, i, j, best.u, best.v);
@@ -471,7 +471,7 @@ function curveCurve(col: Collector, i: number, j: number): void {
 function polish(buf: Float64Array, i: number, j: number, u: number, v: number): [number, number] {
   let [ax, ay] = getPiecePoint(buf, i, u);
   let [bx, by] = getPiecePoint(buf, j, v);
-  let r = Math.hypot(ax - bx, ay - by);
+  let r = getVectorLength(ax - bx, ay - by);
   for (let k = 0; k < MAX_NEWTON_STEPS && r > 0; k++) {
     const [tax, tay] = getPieceTangent(buf, i, u);
     const [tbx, tby] = getPieceTangent(buf, j, v);
@@ -484,7 +484,7 @@ function polish(buf: Float64Array, i: number, j: number, u: number, v: number): 
     const nu = clamp01(u + du), nv = clamp01(v + dv);
     const [nax, nay] = getPiecePoint(buf, i, nu);
     const [nbx, nby] = getPiecePoint(buf, j, nv);
-    const nr = Math.hypot(nax - nbx, nay - nby);
+    const nr = getVectorLength(nax - nbx, nay - nby);
     if (!(nr < r)) break;
     u = nu; v = nv; ax = nax; ay = nay; bx = nbx; by = nby; r = nr;
   }
@@ -513,8 +513,8 @@ function toPlace(P: Pieces, piece: number, u: number, x: number, y: number, eps:
   const o = piece * STRIDE;
   const ch = chainOf(P, piece);
   const local = piece - ch.first;
-  const ds = Math.hypot(x - P.buf[o + 4]!, y - P.buf[o + 5]!);
-  const de = Math.hypot(x - P.buf[o + 6]!, y - P.buf[o + 7]!);
+  const ds = getVectorLength(x - P.buf[o + 4]!, y - P.buf[o + 5]!);
+  const de = getVectorLength(x - P.buf[o + 6]!, y - P.buf[o + 7]!);
   if (u === 0 || (ds <= eps && ds <= de)) return { piece, u: 0, vertex: local };
   if (u === 1 || de <= eps) {
     const v = local + 1;
@@ -686,7 +686,7 @@ function boxesOverlapWithArea(buf: Float64Array, i: number, j: number): boolean 
 /** Bounding-box diagonal of all contours' pieces, the size that `eps` is relative to. */
 function getSize(P: Pieces): number {
   const [a, b, c, d] = P.bbox;
-  return P.count > 0 ? Math.hypot(c - a, d - b) : 0;
+  return P.count > 0 ? getVectorLength(c - a, d - b) : 0;
 }
 
 /**
@@ -745,7 +745,7 @@ export function findIntersections(contours: readonly Contour[], options: Interse
     if (cover.size > 0 && isCovered(P, cover, a, 1e-9) && isCovered(P, cover, b, 1e-9)) continue;
     const key = ka < kb ? `${ka}|${kb}` : `${kb}|${ka}`;
     const prev = seen.get(key) ?? [];
-    if (prev.some((p) => Math.hypot(p.x - h.x, p.y - h.y) <= mergeTol)) continue;
+    if (prev.some((p) => getVectorLength(p.x - h.x, p.y - h.y) <= mergeTol)) continue;
     prev.push({ x: h.x, y: h.y });
     seen.set(key, prev);
     const kind = h.transversal ? 'crossing' : classify(P, a, b, h.x, h.y);

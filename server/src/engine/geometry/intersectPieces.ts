@@ -16,6 +16,7 @@
  */
 import type { Contour, Cubic, Quad, Segment } from '../types';
 import { addQuadraticRootsInUnitInterval } from './intersectRoots';
+import { getVectorLength } from './length';
 
 export const STRIDE = 16;
 export const KIND_LINE = 0;
@@ -264,7 +265,7 @@ export function controlExtent(s: Segment): number {
   const x0 = s.x0, y0 = s.y0;
   switch (s.kind) {
     case 'arc': {
-      const r = Math.max(Math.hypot(s.ux, s.uy), Math.hypot(s.vx, s.vy));
+      const r = Math.max(getVectorLength(s.ux, s.uy), getVectorLength(s.vx, s.vy));
       return Math.max(Math.abs(s.x1 - x0), Math.abs(s.y1 - y0), r * Math.abs(s.sweep));
     }
     case 'line':
@@ -359,7 +360,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number): Pie
       else if (s.kind === 'quad') { lastX = s.x2; lastY = s.y2; }
       else { lastX = s.x1; lastY = s.y1; }
     }
-    const gap = Math.hypot(lastX - c.startX, lastY - c.startY);
+    const gap = getVectorLength(lastX - c.startX, lastY - c.startY);
     if (gap > pointTol) minKept = Math.min(minKept, gap);
     if (c.closed && gap > pointTol) {
       addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);

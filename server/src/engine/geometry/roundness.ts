@@ -29,6 +29,7 @@ import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourPolyline, getPolylineHull, type Polyline } from './hull';
+import { getVectorLength } from './length';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -56,7 +57,7 @@ export interface Circle { readonly x: number; readonly y: number; readonly r: nu
 
 function circleFrom2(a: Pt, b: Pt): Circle {
   const x = (a[0] + b[0]) / 2, y = (a[1] + b[1]) / 2;
-  return { x, y, r: Math.hypot(a[0] - x, a[1] - y) };
+  return { x, y, r: getVectorLength(a[0] - x, a[1] - y) };
 }
 
 function circleFrom3(a: Pt, b: Pt, c: Pt): Circle | null {
@@ -65,21 +66,21 @@ function circleFrom3(a: Pt, b: Pt, c: Pt): Circle | null {
   if (d === 0) return null;
   const b2 = bx * bx + by * by, c2 = cx * cx + cy * cy;
   const ux = (cy * b2 - by * c2) / d, uy = (bx * c2 - cx * b2) / d;
-  return { x: a[0] + ux, y: a[1] + uy, r: Math.hypot(ux, uy) };
+  return { x: a[0] + ux, y: a[1] + uy, r: getVectorLength(ux, uy) };
 }
 
 /**
- * |p − C| ≤ r(1 + 1e-14) + 1e-300 with |p − C| as Math.hypot gives it. Math.hypot is several times
- * slower than a square root, so the squared distance decides first wherever it is off the bound by
- * more than 1e-12 relative (far beyond the few ulp between them, and where the squares neither
- * overflow nor vanish); only the rest takes Math.hypot.
+ * |p − C| ≤ r(1 + 1e-14) + 1e-300 with |p − C| as Math.hypot gives it. The squared distance decides
+ * first wherever it is off the bound by more than 1e-12 relative (far beyond the few ulp between
+ * them, and where the squares neither overflow nor vanish); only the rest takes getVectorLength
+ * (Math.hypot's value, at a division and a square root).
  */
 function inCircle(c: Circle, p: Pt): boolean {
   const dx = p[0] - c.x, dy = p[1] - c.y, bound = c.r * (1 + 1e-14) + 1e-300;
   const d2 = dx * dx + dy * dy, b2 = bound * bound;
   if (d2 < b2 * (1 - 1e-12)) return true;
   if (d2 > b2 * (1 + 1e-12) && b2 > 0) return false;
-  return Math.hypot(dx, dy) <= bound;
+  return getVectorLength(dx, dy) <= bound;
 }
 
 /** Smallest enclosing circle (Welzl 1991, iterative move-to-front form; deterministic shuffle). */
@@ -206,7 +207,7 @@ function pieceBox(p: SearchPiece): [number, number, number, number] {
     // The arc's own ends and any axis-extreme point of the circle inside the sector.
     const ends: [number, number][] = [];
     for (const [dx, dy] of [[p.ax - c.cx, p.ay - c.cy], [p.bx - c.cx, p.by - c.cy]] as const) {
-      const l = Math.hypot(dx, dy);
+      const l = getVectorLength(dx, dy);
       if (l > 0) ends.push([c.cx + (c.r * dx) / l, c.cy + (c.r * dy) / l]);
     }
     for (const [dx, dy] of [[1, 0], [0, 1], [-1, 0], [0, -1]] as const) if (inSector(p, dx, dy)) ends.push([c.cx + c.r * dx, c.cy + c.r * dy]);

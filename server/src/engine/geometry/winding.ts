@@ -10,6 +10,7 @@ import { orient2d } from 'robust-predicates';
 import type { Contour } from '../types';
 import { buildPieces, getPiecePoint, KIND_LINE, STRIDE, type Pieces } from './intersectPieces';
 import { RELATIVE_POINT_TOLERANCE } from './intersect';
+import { getVectorLength } from './length';
 
 export interface WindingResult {
   /** Signed number of turns of the contour (closed by its chord) around the point. */
@@ -32,7 +33,7 @@ export function createWindingTester(contour: Contour): WindingTester {
   const closed: Contour = { ...contour, closed: true };
   const probe = buildPieces([closed], 0);
   const [a, b, c, d] = probe.bbox;
-  const eps = probe.count > 0 ? RELATIVE_POINT_TOLERANCE * Math.hypot(c - a, d - b) : 0;
+  const eps = probe.count > 0 ? RELATIVE_POINT_TOLERANCE * getVectorLength(c - a, d - b) : 0;
   // The pieces at tolerance eps differ from the probe only when a kept segment or gap is within eps.
   const pieces = probe.minKeptExtent > eps ? probe : buildPieces([closed], eps);
   const buf = pieces.buf;
@@ -60,7 +61,7 @@ export function createWindingTester(contour: Contour): WindingTester {
         if (!(up ? y0 <= py && py < y1 : y1 <= py && py < y0)) {
           // Still check for the point lying on the piece near its ends.
           const [ex, ey] = getPiecePoint(buf, i, Math.abs(py - y0) < Math.abs(py - y1) ? 0 : 1);
-          if (Math.hypot(ex - px, ey - py) <= eps) return { winding: 0, onBoundary: true };
+          if (getVectorLength(ex - px, ey - py) <= eps) return { winding: 0, onBoundary: true };
           continue;
         }
         let lo = 0, hi = 1;
@@ -71,7 +72,7 @@ export function createWindingTester(contour: Contour): WindingTester {
           if ((ym < py) === up) lo = m; else hi = m;
         }
         const [xc, yc] = getPiecePoint(buf, i, 0.5 * (lo + hi));
-        if (Math.hypot(xc - px, yc - py) <= eps) return { winding: 0, onBoundary: true };
+        if (getVectorLength(xc - px, yc - py) <= eps) return { winding: 0, onBoundary: true };
         if (xc > px) w += up ? 1 : -1;
       }
       return { winding: w, onBoundary: false };

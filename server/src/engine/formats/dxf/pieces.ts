@@ -10,6 +10,7 @@ import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PolyVertex } from './ent
 import { PieceStore, type PieceFacts, type PolylineFixInfo } from './pieceStore';
 import { getSplineSegments } from './spline';
 import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine } from './transform';
+import { getVectorLength } from '../../geometry/length';
 
 /** Facts met while building pieces, reported by the reader. */
 export interface PieceNotes {
@@ -59,7 +60,7 @@ function getFullArc(cx: number, cy: number, ux: number, uy: number, vx: number, 
  */
 export function getBulgeSegment(x0: number, y0: number, x1: number, y1: number, bulge: number, span: SourceSpan): Segment {
   const dx = x1 - x0, dy = y1 - y0;
-  const c = Math.hypot(dx, dy);
+  const c = getVectorLength(dx, dy);
   if (bulge === 0 || c === 0) return { kind: 'line', x0, y0, x1, y1, span };
   const h = (1 - bulge * bulge) / (4 * bulge); // offset per unit chord length
   const cx = (x0 + x1) / 2 - dy * h;

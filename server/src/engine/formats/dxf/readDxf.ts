@@ -17,6 +17,7 @@ import { GroupScanner, isBinaryDxf } from './groups';
 import { PieceBuilder } from './pieces';
 import type { PieceStore, PolylineFixInfo } from './pieceStore';
 import { getDxfUnits } from './units';
+import { getVectorLength } from '../../geometry/length';
 
 export interface ReadDxfOptions {
   readonly assumedUnit: AssumedUnit;
@@ -252,7 +253,7 @@ interface ChainEnd {
 type Gap = Float64Array;
 
 function getGapMm(gap: Gap): number {
-  return Math.hypot(gap[2] - gap[0], gap[3] - gap[1]);
+  return getVectorLength(gap[2] - gap[0], gap[3] - gap[1]);
 }
 
 /**
@@ -428,7 +429,7 @@ function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, gap: Gap, 
   } else {
     return undefined;
   }
-  const gapMm = Math.hypot(ex - sx, ey - sy);
+  const gapMm = getVectorLength(ex - sx, ey - sy);
   return {
     title: `Move the end of the ${element} onto the other end of the contour (${formatNumber(gapMm)} mm away)`,
     edits: [replaceValue(text, moved.xs, moved.xe, to[0]), replaceValue(text, moved.ys, moved.ye, to[1])],

@@ -14,6 +14,7 @@
  * between samples.
  */
 import type { Segment, SourceSpan } from '../../types';
+import { getVectorLength } from '../../geometry/length';
 
 export interface SplineInput {
   readonly degree: number;
@@ -93,7 +94,7 @@ function fitCubics(H: readonly number[], p: number, tolerance: number, span: Sou
       const v = 1 - u;
       const bx = v * v * v * c.x0 + 3 * v * v * u * c.x1 + 3 * v * u * u * c.x2 + u * u * u * c.x3;
       const by = v * v * v * c.y0 + 3 * v * v * u * c.y1 + 3 * v * u * u * c.y2 + u * u * u * c.y3;
-      worst = Math.max(worst, Math.hypot(bx - x, by - y));
+      worst = Math.max(worst, getVectorLength(bx - x, by - y));
     }
     if (worst <= tolerance || depth >= MAX_FIT_DEPTH) {
       if (worst > tolerance) capped = true;
@@ -123,7 +124,7 @@ function getConicArc(H: readonly number[], span: SourceSpan): Segment | null {
   const w = w1 / Math.sqrt(w0 * w2);
   const x0 = H[0] / w0, y0 = H[1] / w0, x1 = H[3] / w1, y1 = H[4] / w1, x2 = H[6] / w2, y2 = H[7] / w2;
   const cross = (x1 - x0) * (y2 - y0) - (y1 - y0) * (x2 - x0);
-  const scale = Math.hypot(x1 - x0, y1 - y0) * Math.hypot(x2 - x0, y2 - y0);
+  const scale = getVectorLength(x1 - x0, y1 - y0) * getVectorLength(x2 - x0, y2 - y0);
   if (!(Math.abs(cross) > 1e-12 * scale)) return null; // collinear: a degenerate conic
   if (w === 1) return { kind: 'quad', x0, y0, x1, y1, x2, y2, span };
   if (!(w < 1)) return null;

@@ -1,7 +1,6 @@
-import { getSegmentEnd, getSegmentLength } from '../geometry/measure';
+import { getSegmentEnd, getSegmentLength, getVectorLength } from '../geometry/measure';
 import { ZERO_LENGTH_MM } from '../geometry/tolerances';
 import { defineCheck } from './defineCheck';
-import { getVectorLength } from '../geometry/length';
 
 /** A segment that goes nowhere: a repeated point. Machines may pause on it and leave a burn mark. */
 export default defineCheck({

@@ -53,51 +53,6 @@ export function getSegmentPoint(s: Segment, t: number): [number, number] {
   }
 }
 
-/**
- * Candidate parameters t ∈ (0, 1) of one coordinate of a Bézier whose derivative is
- * a·t² + b·t + c (a = 0 for a quadratic): the real roots (where that coordinate is extremal) and,
- * when the discriminant is ≤ 0, the vertex −b/(2a) (where |derivative| is smallest — a double root
- * that rounding pushed off the real axis lands there). Roots by the cancellation-free form
- * q = −½(b + sign(b)√disc), t = q/a, c/q [src: Press et al., Numerical Recipes, 3rd ed. §5.6].
- */
-function pushDerivativeRoots(a: number, b: number, c: number, out: number[]): void {
-  if (a === 0) {
-    if (b !== 0) out.push(-c / b);
-    return;
-  }
-  const disc = b * b - 4 * a * c;
-  if (disc <= 0) {
-    out.push(-b / (2 * a));
-    return;
-  }
-  const q = -0.5 * (b + (b >= 0 ? 1 : -1) * Math.sqrt(disc));
-  out.push(q / a, c / q); // disc > 0, so q ≠ 0
-}
-
-/**
- * Parameters t ∈ (0, 1), sorted and distinct, where x′(t) = 0 or y′(t) = 0 for a quad or cubic, plus
- * the vertices described above. They contain the coordinate extrema and every cusp (B′(t) = 0 is a
- * common root of x′ and y′); a near-cusp lies between the x′ and y′ roots. Empty for lines and arcs.
- */
-export function getBezierCriticalParameters(s: Segment): number[] {
-  const ts: number[] = [];
-  if (s.kind === 'quad') {
-    // B′/2 = (P1 − P0) + t·(P0 − 2P1 + P2)
-    pushDerivativeRoots(0, s.x0 - 2 * s.x1 + s.x2, s.x1 - s.x0, ts);
-    pushDerivativeRoots(0, s.y0 - 2 * s.y1 + s.y2, s.y1 - s.y0, ts);
-  } else if (s.kind === 'cubic') {
-    // B′/3 = (1−t)²d0 + 2(1−t)t·d1 + t²d2 = (d0 − 2d1 + d2)t² + 2(d1 − d0)t + d0, d_i = P_{i+1} − P_i
-    const dx0 = s.x1 - s.x0, dx1 = s.x2 - s.x1, dx2 = s.x3 - s.x2;
-    const dy0 = s.y1 - s.y0, dy1 = s.y2 - s.y1, dy2 = s.y3 - s.y2;
-    pushDerivativeRoots(dx0 - 2 * dx1 + dx2, 2 * (dx1 - dx0), dx0, ts);
-    pushDerivativeRoots(dy0 - 2 * dy1 + dy2, 2 * (dy1 - dy0), dy0, ts);
-  }
-  return ts
-    .filter((t) => t > 0 && t < 1)
-    .sort((p, q) => p - q)
-    .filter((t, i, all) => i === 0 || t !== all[i - 1]);
-}
-
 /** True when angle θ lies on the arc's sweep from theta0 (ends included). */
 function isAngleOnArc(a: Arc, theta: number): boolean {
   const turn = 2 * Math.PI;
@@ -127,10 +82,16 @@ function setArcBounds(a: Arc, box: Box): void {
   if (isAngleOnArc(a, thetaMaxY + Math.PI)) box[1] = Math.min(box[1], a.cy - ry);
 }
 
-/** Critical parameters of the Bézier being boxed (at most four), sorted in place by setBezierBounds. */
+/** Critical parameters of the last Bézier given to fillCriticalScratch (at most four), unsorted. */
 const criticalScratch: number[] = [0, 0, 0, 0];
 
-/** Adds the roots of a·t² + b·t + c (see pushDerivativeRoots) that lie in (0, 1) to the scratch list. */
+/**
+ * Adds to the scratch list the candidate parameters in (0, 1) of one coordinate of a Bézier whose
+ * derivative is a·t² + b·t + c (a = 0 for a quadratic): the real roots (where that coordinate is
+ * extremal) and, when the discriminant is ≤ 0, the vertex −b/(2a) (where |derivative| is smallest — a
+ * double root that rounding pushed off the real axis lands there). Roots by the cancellation-free
+ * form q = −½(b + sign(b)√disc), t = q/a, c/q [src: Press et al., Numerical Recipes, 3rd ed. §5.6].
+ */
 function addDerivativeRoots(a: number, b: number, c: number, count: number): number {
   let r0: number, r1 = NaN;
   if (a === 0) {
@@ -143,7 +104,7 @@ function addDerivativeRoots(a: number, b: number, c: number, count: number): num
     } else {
       const q = -0.5 * (b + (b >= 0 ? 1 : -1) * Math.sqrt(disc));
       r0 = q / a;
-      r1 = c / q;
+      r1 = c / q; // disc > 0, so q ≠ 0
     }
   }
   if (r0 > 0 && r0 < 1) criticalScratch[count++] = r0;
@@ -151,23 +112,41 @@ function addDerivativeRoots(a: number, b: number, c: number, count: number): num
   return count;
 }
 
+/** Writes a quad's or cubic's critical parameters (x′ then y′, unsorted) to the scratch list and returns how many. */
+function fillCriticalScratch(s: Quad | Cubic): number {
+  if (s.kind === 'quad') {
+    // B′/2 = (P1 − P0) + t·(P0 − 2P1 + P2)
+    const count = addDerivativeRoots(0, s.x0 - 2 * s.x1 + s.x2, s.x1 - s.x0, 0);
+    return addDerivativeRoots(0, s.y0 - 2 * s.y1 + s.y2, s.y1 - s.y0, count);
+  }
+  // B′/3 = (1−t)²d0 + 2(1−t)t·d1 + t²d2 = (d0 − 2d1 + d2)t² + 2(d1 − d0)t + d0, d_i = P_{i+1} − P_i
+  const dx0 = s.x1 - s.x0, dx1 = s.x2 - s.x1, dx2 = s.x3 - s.x2;
+  const dy0 = s.y1 - s.y0, dy1 = s.y2 - s.y1, dy2 = s.y3 - s.y2;
+  const count = addDerivativeRoots(dx0 - 2 * dx1 + dx2, 2 * (dx1 - dx0), dx0, 0);
+  return addDerivativeRoots(dy0 - 2 * dy1 + dy2, 2 * (dy1 - dy0), dy0, count);
+}
+
+/**
+ * Parameters t ∈ (0, 1), sorted and distinct, where x′(t) = 0 or y′(t) = 0 for a quad or cubic, plus
+ * the vertices described at addDerivativeRoots. They contain the coordinate extrema and every cusp
+ * (B′(t) = 0 is a common root of x′ and y′); a near-cusp lies between the x′ and y′ roots. Empty for
+ * lines and arcs.
+ */
+export function getBezierCriticalParameters(s: Segment): number[] {
+  if (s.kind !== 'quad' && s.kind !== 'cubic') return [];
+  return criticalScratch
+    .slice(0, fillCriticalScratch(s))
+    .sort((p, q) => p - q)
+    .filter((t, i, all) => i === 0 || t !== all[i - 1]);
+}
+
 /**
  * Writes a quad's or cubic's exact box into `box`: the end points, then the curve at each critical
  * parameter in increasing order (getBezierCriticalParameters, with no arrays made).
  */
 function setBezierBounds(s: Quad | Cubic, box: Box): void {
-  let ex: number, ey: number, count: number;
-  if (s.kind === 'quad') {
-    ex = s.x2; ey = s.y2;
-    count = addDerivativeRoots(0, s.x0 - 2 * s.x1 + s.x2, s.x1 - s.x0, 0);
-    count = addDerivativeRoots(0, s.y0 - 2 * s.y1 + s.y2, s.y1 - s.y0, count);
-  } else {
-    ex = s.x3; ey = s.y3;
-    const dx0 = s.x1 - s.x0, dx1 = s.x2 - s.x1, dx2 = s.x3 - s.x2;
-    const dy0 = s.y1 - s.y0, dy1 = s.y2 - s.y1, dy2 = s.y3 - s.y2;
-    count = addDerivativeRoots(dx0 - 2 * dx1 + dx2, 2 * (dx1 - dx0), dx0, 0);
-    count = addDerivativeRoots(dy0 - 2 * dy1 + dy2, 2 * (dy1 - dy0), dy0, count);
-  }
+  const ex = s.kind === 'quad' ? s.x2 : s.x3, ey = s.kind === 'quad' ? s.y2 : s.y3;
+  const count = fillCriticalScratch(s);
   box[0] = Math.min(s.x0, ex); box[1] = Math.min(s.y0, ey);
   box[2] = Math.max(s.x0, ex); box[3] = Math.max(s.y0, ey);
   const ts = criticalScratch;

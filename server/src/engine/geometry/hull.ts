@@ -4,7 +4,7 @@
  *
  * Flattening, per monotone piece (intersectPieces.ts `writeSegmentPieces`): lines are kept exactly; a Bézier piece gets m
  * chords with m from Wang's formula m ≥ √(d(d−1)·M/(8δ)) (REFERENCES.md §4.6), an arc piece m chords
- * with sagitta r(1 − cos(Δθ/2m)) ≤ δ (r = the larger semi-diameter). Every curve point is then within
+ * with sagitta r(1 − cos(Δθ/2m)) ≤ δ (r = the semi-major axis a). Every curve point is then within
  * δ of the polyline and vice versa. The polyline is kept in flat arrays and built one segment at a
  * time, so a contour of a million segments costs no object per vertex.
  * Hull: Andrew's monotone chain with exact orient2d turns [src: Andrew, Inf. Process. Lett. 9 (1979)
@@ -13,7 +13,7 @@
  */
 import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
-import { getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
+import { controlExtent, getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
 import { getVectorLength } from './length';
 
 /**
@@ -127,7 +127,12 @@ function getBezierChords(K: number, M: number, toleranceMm: number): number {
   const q = Math.sqrt((K * M) / (8 * toleranceMm));
   const m = Math.ceil(q);
   if (!(m - q > 1e-9 * q && q - (m - 1) > 1e-9 * q)) return Number.NaN;
-  return Math.min(MAX_CHORDS_PER_PIECE, Math.max(1, m));
+  return getChordCount(K, M, toleranceMm);
+}
+
+/** m = max(1, ⌈√(K·M/(8δ))⌉), capped at MAX_CHORDS_PER_PIECE. */
+function getChordCount(K: number, M: number, toleranceMm: number): number {
+  return Math.min(MAX_CHORDS_PER_PIECE, Math.max(1, Math.ceil(Math.sqrt((K * M) / (8 * toleranceMm)))));
 }
 
 /**
@@ -162,7 +167,7 @@ function flattenPiece(w: PolylineWriter, segment: number, i: number, toleranceMm
     let exact = false;
     if (Number.isNaN(m)) {
       M = getExactM(quad, ax, ay, cx, cy); exact = true;
-      m = Math.min(MAX_CHORDS_PER_PIECE, Math.max(1, Math.ceil(Math.sqrt((K * M) / (8 * toleranceMm)))));
+      m = getChordCount(K, M, toleranceMm);
     }
     pieceDeviation = (K * M) / (8 * m * m);
     if (!exact && !(pieceDeviation < floor * (1 - 1e-12))) pieceDeviation = (K * getExactM(quad, ax, ay, cx, cy)) / (8 * m * m);
@@ -190,7 +195,7 @@ export function getContourPolyline(contour: Contour, toleranceMm: number): Polyl
     const s = segments[si]!;
     if (s.kind === 'line') {
       // The one piece writeSegmentPieces would write, without the buffer.
-      if (Math.max(0, Math.abs(s.x1 - s.x0), Math.abs(s.y1 - s.y0)) <= 0) continue;
+      if (controlExtent(s) <= 0) continue;
       w.addPiece(si, false);
       w.addPoint(s.x0, s.y0);
       lastX = s.x1; lastY = s.y1;
@@ -396,10 +401,10 @@ function getHullIndices(xs: Float64Array, ys: Float64Array, indices: number[]): 
   return [...lower, ...upper];
 }
 
-/** Convex hull of (xs[i], ys[i]), i < n: counter-clockwise in y-up axes from the lexicographically
+/** Convex hull of the points (xs[i], ys[i]): counter-clockwise in y-up axes from the lexicographically
  *  least point, no collinear vertices. */
-export function getConvexHullOfCoordinates(xs: Float64Array, ys: Float64Array, n = xs.length): [number, number][] {
-  return getHullIndices(xs, ys, getHullCandidates(xs, ys, n)).map((i) => [xs[i]!, ys[i]!]);
+export function getConvexHullOfCoordinates(xs: Float64Array, ys: Float64Array): [number, number][] {
+  return getHullIndices(xs, ys, getHullCandidates(xs, ys, xs.length)).map((i) => [xs[i]!, ys[i]!]);
 }
 
 /** Convex hull, counter-clockwise in y-up axes, no collinear vertices. */

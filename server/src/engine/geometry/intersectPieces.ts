@@ -51,7 +51,7 @@ export interface Pieces {
  * plus half as many again for cuts, and grows by half when a drawing needs more; the untouched tail
  * of a fresh zeroed buffer costs address space, not memory (its pages are never touched).
  */
-export class PieceWriter {
+class PieceWriter {
   buf: Float64Array;
   contourOf: Int32Array;
   count = 0;

@@ -34,7 +34,7 @@ function trim(c: readonly number[]): number[] {
   return c.slice(0, n);
 }
 
-function bisect(c: ArrayLike<number>, a: number, b: number, fa: number): number {
+function bisect(c: readonly number[], a: number, b: number, fa: number): number {
   for (let i = 0; i < MAX_BISECTION_STEPS; i++) {
     const m = 0.5 * (a + b);
     if (m <= a || m >= b) break;
@@ -105,7 +105,7 @@ export function addQuadraticRootsInUnitInterval(out: number[], c: Float64Array):
   // p(x) written out as evaluatePolynomial's Horner steps: ((0·x + c2)·x + c1)·x + c0, where
   // 0·x + c2 = c2 exactly for x ≥ 0 and c2 ≠ 0.
   let fa = (c2 * 0 + c1) * 0 + c0;
-  if (Math.abs(fa) <= 0) { out.push(0); prev = 0; }
+  if (fa === 0) { out.push(0); prev = 0; }
   let a = 0;
   for (let k = inside ? 0 : 1; k < 2; k++) {
     const b = k === 0 ? crit : 1;
@@ -125,7 +125,7 @@ export function addQuadraticRootsInUnitInterval(out: number[], c: Float64Array):
       if (x !== prev) out.push(x);
       prev = x;
     }
-    if (fb === 0 || Math.abs(fb) <= 0) {
+    if (fb === 0) {
       if (b !== prev) out.push(b);
       prev = b;
     }

@@ -4,7 +4,7 @@
  *
  * Leaves are runs of up to LEAF_PIECES consecutive pieces of one chain (neighbours on a contour lie
  * next to each other, so a run's box is small); leaves are put in Z-order of their box centres
- * (Morton code, 16 bits per axis, sorted by two radix passes) and packed FANOUT to a node, level by
+ * (Morton code, 16 bits per axis, sorted by an LSD radix sort of four 8-bit digits) and packed FANOUT to a node, level by
  * level, as in a packed R-tree. The join descends only into pairs of nodes whose boxes meet; a node's
  * box is the union of its children's, so no meeting pair is missed. For contours drawn at a bounded
  * density the cost is ~ n log n + k for n pieces and k meeting pairs. [src: packed R-tree and its

@@ -42,7 +42,7 @@ export const BEZIER_LENGTH_MAX_DEPTH = 20;
 export const CARLSON_REL_TOL = 2 ** -53;
 
 /** Target accuracy of the length of an elliptical arc shorter than a quarter turn, integrated by the
- *  same adaptive Gauss–Legendre scheme as Béziers (length.ts, getArcLengthEstimate).
+ *  adaptive 16-point Gauss–Legendre scheme (length.ts, `refine`, from getArcLengthEstimate).
  *  Quantity: length · Unit: none · Relative. Why this size: longer arcs are measured through elliptic
  *  integrals to ~1e-15; 1e-13 keeps short arcs nearly as exact at a few panels (the integrand is
  *  analytic) while staying well above the rounding noise of the 16-point sums (~1e-16 per panel).

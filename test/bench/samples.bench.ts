@@ -6,14 +6,15 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { bench, describe } from 'vitest';
-import { analyze } from '../../server/src/engine/index';
+import { analyze, getFormatForPath } from '../../server/src/engine/index';
 
 const dir = join(__dirname, '../../samples');
 
 describe('analyze() per sample file', () => {
-  for (const name of readdirSync(dir).filter((f) => /\.(svg|dxf)$/.test(f)).sort()) {
+  for (const name of readdirSync(dir).sort()) {
+    const format = getFormatForPath(name);
+    if (!format) continue;
     const text = readFileSync(join(dir, name), 'utf8');
-    const format = name.endsWith('.svg') ? 'svg' : 'dxf';
     bench(name, () => { analyze(text, format); }, { warmupIterations: 3, iterations: 15, time: 0 });
   }
 });

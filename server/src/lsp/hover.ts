@@ -48,12 +48,12 @@ function length(v: number): string {
   return Math.abs(v) < RESIDUE_MM ? '0' : formatNumber(v);
 }
 
-/** " ± b" when the bound reaches the shown digits and is more than residue, else nothing. */
+/** " ± b" when the bound is more than residue, else nothing. */
 function plusMinus(errorBoundMm: number): string {
-  return errorBoundMm < RESIDUE_MM || formatNumber(errorBoundMm) === '0' ? '' : ` ± ${formatNumber(errorBoundMm)}`;
+  return errorBoundMm < RESIDUE_MM ? '' : ` ± ${formatNumber(errorBoundMm)}`;
 }
 
-/** A radius or zone with its centre; the error bound is shown when it reaches the shown digits. */
+/** A radius or zone with its centre; the error bound is shown when it is more than residue. */
 function circle(m: MeasuredCircle): string {
   if (m.value === null) return undefinedBecause(m.reason);
   const { valueMm, centreXMm, centreYMm, errorBoundMm } = m.value;

@@ -189,11 +189,10 @@ export function startServer(connection: Connection, analyser: Analyser): void {
       getDocumentSymbols(result.contours, document)),
   );
 
-  connection.onCodeAction(async (params, token) =>
+  connection.onCodeAction((params, token) =>
     !features.codeActionLiterals ? [] : answerFromAnalysis(params.textDocument.uri, token, [], 'code actions', (result, document) =>
       getCodeActions(result, document, params.context.diagnostics, { documentChanges: features.documentChanges })),
   );
-
 
   connection.onRequest(ReanalyzeRequest, (_params, token) =>
     runSafeAsync(

@@ -11,18 +11,14 @@
 import { SymbolKind } from 'vscode-languageserver';
 import type { DocumentSymbol } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
-import { formatNumber } from '../engine/index';
-import type { ContourMetrics, ContourOutline, SourceSpan } from '../engine/index';
+import { formatNumber, getPlacement } from '../engine/index';
+import type { ContourMetrics, ContourOutline } from '../engine/index';
 import { toRange } from './diagnostics';
 
 /** What a symbol needs of a contour's result (the file-wide geometry is not read). */
 export interface SymbolSource {
   readonly contour: Omit<ContourOutline, 'segmentSpans'>;
   readonly metrics: ContourMetrics;
-}
-
-function contains(outer: SourceSpan, inner: SourceSpan): boolean {
-  return outer.start <= inner.start && inner.end <= outer.end;
 }
 
 /** "closed, 60 mm", "closed (gap 0.02 mm), 60 mm" or "open (gap 5 mm), 7 mm": status and drawn length. */
@@ -48,20 +44,10 @@ export function getSymbolDetail(entry: SymbolSource): string {
 export function getDocumentSymbols(contours: readonly SymbolSource[], document: TextDocument): DocumentSymbol[] {
   return contours.map((entry) => {
     const { span, elementSpan } = entry.contour;
-    let full: SourceSpan;
-    let selection: SourceSpan;
-    if (contains(elementSpan, span)) {
-      full = elementSpan;
-      selection = span;
-    } else if (span.start >= elementSpan.start && span.start <= elementSpan.end) {
-      // The contour's text starts inside the element and runs on (a DXF chain's first entity).
-      full = { start: elementSpan.start, end: Math.max(elementSpan.end, span.end) };
-      selection = span;
-    } else {
-      // The text is elsewhere (a `<use>` instance): the placing element stands for both.
-      full = elementSpan;
-      selection = elementSpan;
-    }
+    const selection = getPlacement(entry.contour);
+    // Own text: the range widens the element over it (a DXF chain's text runs on past its first
+    // entity). Text elsewhere (a `<use>` instance): the placing element stands for both.
+    const full = selection === span ? { start: elementSpan.start, end: Math.max(elementSpan.end, span.end) } : elementSpan;
     return {
       name: getSymbolName(entry),
       detail: getSymbolDetail(entry),

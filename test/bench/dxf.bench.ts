@@ -24,32 +24,22 @@ import { bench, describe } from 'vitest';
 import { readDxf } from '../../server/src/engine/formats/dxf/readDxf';
 import { analyze, DEFAULT_OPTIONS } from '../../server/src/engine/index';
 import { makeLooseDxf, tokenizeFloor } from './looseDxf';
+import { fmt, time } from './timing';
 
-/** Median wall time (ms) of `runs` calls. */
-function time(runs: number, fn: () => unknown): number {
-  const times: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t = performance.now();
-    fn();
-    times.push(performance.now() - t);
-  }
-  times.sort((a, b) => a - b);
-  return times[Math.floor(times.length / 2)]!;
-}
-
-const fmt = (ms: number) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(0)} ms`);
 const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });
 const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
 const sizes = [1e4, 1e5, 1e6].filter((n) => n <= maxN);
 
+let largest = '';
 for (const n of sizes) {
   const text = makeLooseDxf(n);
+  largest = text;
   const runs = n >= 1e6 ? 1 : 3;
   analyze(text, 'dxf'); // warm-up: the first call compiles the hot paths
-  const fl = time(runs, () => tokenizeFloor(text));
-  const rd = time(runs, () => read(text));
-  const an = time(runs, () => analyze(text, 'dxf'));
-  const dp = time(runs, () => new DxfParser().parseSync(text));
+  const fl = time(runs, () => tokenizeFloor(text)).ms;
+  const rd = time(runs, () => read(text)).ms;
+  const an = time(runs, () => analyze(text, 'dxf')).ms;
+  const dp = time(runs, () => new DxfParser().parseSync(text)).ms;
   console.log(
     `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl)}, read ${fmt(rd)}, analyze ${fmt(an)}, dxf-parser ${fmt(dp)}` +
       ` | read/floor ${(rd / fl).toFixed(2)}, analyze/floor ${(an / fl).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dp / an).toFixed(2)} (target > 1)`,
@@ -61,7 +51,7 @@ if (maxN >= 1e6) {
   const script = join(dir, 'dxfPeakRss.cjs');
   const file = join(dir, 'loose-1e6.dxf');
   buildSync({ entryPoints: [fileURLToPath(new URL('./dxfPeakRss.ts', import.meta.url))], bundle: true, platform: 'node', format: 'cjs', outfile: script, logLevel: 'error' });
-  writeFileSync(file, makeLooseDxf(1e6));
+  writeFileSync(file, largest); // the 1e6 text timed above
   const r = JSON.parse(execFileSync(process.execPath, [script, file], { encoding: 'utf8' })) as { peakRssMb: number; rssTextMb: number; textMb: number; ms: number };
   rmSync(dir, { recursive: true });
   console.log(

@@ -19,6 +19,7 @@ import paper from 'paper';
 import { SaxesParser } from 'saxes';
 import { bench, describe } from 'vitest';
 import { analyze } from '../../server/src/engine/index';
+import { fmt, time } from './timing';
 
 type Kind = 'line' | 'cubic' | 'arc';
 
@@ -80,24 +81,10 @@ function paperFull(d: string): number {
 
 paper.setup(new paper.Size(100, 100));
 
-/** Median wall time (ms) of `runs` calls, and the last call's value. */
-function time<T>(runs: number, fn: () => T): { ms: number; value: T } {
-  const times: number[] = [];
-  let value!: T;
-  for (let i = 0; i < runs; i++) {
-    const t = performance.now();
-    value = fn();
-    times.push(performance.now() - t);
-  }
-  times.sort((a, b) => a - b);
-  return { ms: times[Math.floor(times.length / 2)]!, value };
-}
-
 const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
 const sizes = [1e4, 1e5, 1e6].filter((n) => n <= maxN);
 const kinds: readonly Kind[] = ['line', 'cubic', 'arc'];
 const oursMs = new Map<string, number>();
-const fmt = (ms: number) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(0)} ms`);
 
 for (const n of sizes) {
   for (const kind of kinds) {

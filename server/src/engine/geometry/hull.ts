@@ -13,7 +13,7 @@
  */
 import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
-import { controlExtent, getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
+import { controlExtent, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
 import { getVectorLength } from './length';
 
 /**
@@ -83,10 +83,12 @@ function getHalfChordAngle(r: number, toleranceMm: number): number {
 /** Most chords for one curved piece: bounds the work on huge curves (the bound δ is then raised and reported). */
 const MAX_CHORDS_PER_PIECE = 4096;
 
-/** Growable flat arrays for `getContourPolyline`. */
+/** Growable flat arrays for the flattening. */
 class PolylineWriter {
   xs: Float64Array; ys: Float64Array; n = 0;
   first: Int32Array; segment: Int32Array; onCircle: Uint8Array; pieces = 0;
+  /** The polyline's deviations, as Polyline has them. */
+  deviation = 0; offCircleDeviation = 0;
   constructor(capacity: number) {
     this.xs = new Float64Array(capacity); this.ys = new Float64Array(capacity);
     this.first = new Int32Array(capacity); this.segment = new Int32Array(capacity);
@@ -95,6 +97,10 @@ class PolylineWriter {
   addPoint(x: number, y: number): void {
     if (this.n === this.xs.length) { this.xs = grow(this.xs); this.ys = grow(this.ys); }
     this.xs[this.n] = x; this.ys[this.n++] = y;
+  }
+  /** Makes room for `count` more points. */
+  reservePoints(count: number): void {
+    while (this.n + count > this.xs.length) { this.xs = grow(this.xs); this.ys = grow(this.ys); }
   }
   /** Starts a piece at the next vertex. */
   addPiece(segment: number, onCircle: boolean): void {
@@ -112,6 +118,13 @@ function grow<T extends Float64Array | Int32Array | Uint8Array>(a: T): T {
   b.set(a);
   return b;
 }
+
+/** Largest capacity the shared writer keeps between contours: a contour needing more gets arrays of
+ *  its own, which die with its polyline. */
+const SHARED_WRITER_MAX = 1 << 16;
+/** The writer of `getTransientPolyline`, reused by every contour that fits it: most contours are
+ *  small, and fresh arrays for each (then grown) cost more than flattening them. */
+let sharedWriter = new PolylineWriter(1024);
 
 /** A Bézier's M by getVectorLength (Math.hypot's value), as the module comment defines it ((cx, cy) unused for a quadratic). */
 function getExactM(quad: boolean, ax: number, ay: number, cx: number, cy: number): number {
@@ -174,21 +187,119 @@ function flattenPiece(w: PolylineWriter, segment: number, i: number, toleranceMm
   }
   w.addPiece(segment, onCircle);
   w.addPoint(b[o + 4]!, b[o + 5]!);
-  for (let j = 1; j < m; j++) {
-    const [x, y] = getPiecePoint(b, i, j / m);
-    w.addPoint(x, y);
-  }
+  if (m > 1) addInnerPoints(w, o, kind, m);
   return pieceDeviation;
+}
+
+/** Cosines and sines of an arc piece's inner chord angles θ0 + (j/m)(θ1 − θ0), 0 < j < m. */
+interface ChordAngles { th0: number; th1: number; m: number; readonly cos: Float64Array; readonly sin: Float64Array }
+
+/** Most chord angle sets kept (each at most 2·8·MAX_CHORDS_PER_PIECE bytes): a drawing's arcs
+ *  often repeat the same angles at other centres (a rounded corner or slot per part), so their
+ *  trigonometry is done once. */
+const CHORD_ANGLE_SETS = 8;
+const chordAngles: ChordAngles[] = [];
+let nextChordAngles = 0;
+
+/** The chord angles' cosines and sines for (th0, th1, m), computed as getPiecePoint computes them
+ *  (so to the bit) or taken from a set kept from an earlier piece with the same three numbers. */
+function getChordAngles(th0: number, th1: number, m: number): ChordAngles {
+  for (const c of chordAngles) if (c.th0 === th0 && c.th1 === th1 && c.m === m) return c;
+  let c = chordAngles[nextChordAngles];
+  if (!c || c.cos.length < m) {
+    c = { th0, th1, m, cos: new Float64Array(Math.max(m, 128)), sin: new Float64Array(Math.max(m, 128)) };
+    chordAngles[nextChordAngles] = c;
+  }
+  nextChordAngles = (nextChordAngles + 1) % CHORD_ANGLE_SETS;
+  c.th0 = th0; c.th1 = th1; c.m = m;
+  const dth = th1 - th0, cos = c.cos, sin = c.sin;
+  for (let j = 1; j < m; j++) {
+    const th = th0 + (j / m) * dth;
+    cos[j] = Math.cos(th); sin[j] = Math.sin(th);
+  }
+  return c;
+}
+
+/**
+ * Adds the points of piece o/STRIDE of SEGMENT_PIECES at u = j/m, 0 < j < m (m > 1, so not a line):
+ * getPiecePoint's arithmetic, operation for operation, so the values are its values to the bit,
+ * without an array per point.
+ */
+function addInnerPoints(w: PolylineWriter, o: number, kind: number, m: number): void {
+  const b = SEGMENT_PIECES;
+  w.reservePoints(m - 1);
+  const xs = w.xs, ys = w.ys;
+  let n = w.n;
+  const x0 = b[o + 4]!, y0 = b[o + 5]!, x1 = b[o + 6]!, y1 = b[o + 7]!;
+  if (kind === KIND_ARC) {
+    const cx = b[o + 8]!, cy = b[o + 9]!, ux = b[o + 10]!, uy = b[o + 11]!, vx = b[o + 12]!, vy = b[o + 13]!;
+    const { cos, sin } = getChordAngles(b[o + 14]!, b[o + 15]!, m);
+    for (let j = 1; j < m; j++) {
+      const cs = cos[j]!, sn = sin[j]!;
+      xs[n] = cx + ux * cs + vx * sn; ys[n++] = cy + uy * cs + vy * sn;
+    }
+  } else if (kind === KIND_QUAD) {
+    const px = b[o + 8]!, py = b[o + 9]!;
+    for (let j = 1; j < m; j++) {
+      const u = j / m, v = 1 - u;
+      const a = v * v, bb = 2 * u * v, c = u * u;
+      xs[n] = a * x0 + bb * px + c * x1; ys[n++] = a * y0 + bb * py + c * y1;
+    }
+  } else {
+    const px = b[o + 8]!, py = b[o + 9]!, qx = b[o + 10]!, qy = b[o + 11]!;
+    for (let j = 1; j < m; j++) {
+      const u = j / m, v = 1 - u;
+      const a = v * v * v, bb = 3 * u * v * v, c = 3 * u * u * v, d = u * u * u;
+      xs[n] = a * x0 + bb * px + c * qx + d * x1; ys[n++] = a * y0 + bb * py + c * qy + d * y1;
+    }
+  }
+  w.n = n;
 }
 
 /**
  * The contour as a closed polyline within `toleranceMm` of it (see the module comment): its
  * monotone pieces (those of intersectPieces.ts `buildPieces`, one segment at a time), each cut into
- * chords.
+ * chords. Its arrays are its own.
  */
 export function getContourPolyline(contour: Contour, toleranceMm: number): Polyline {
+  const p = getTransientPolyline(contour, toleranceMm);
+  return {
+    ...p, xs: p.xs.slice(), ys: p.ys.slice(),
+    pieceFirst: p.pieceFirst.slice(), pieceSegment: p.pieceSegment.slice(), pieceOnCircle: p.pieceOnCircle.slice(),
+  };
+}
+
+/**
+ * `getContourPolyline`'s polyline in arrays that the next call of this function may overwrite: for a
+ * caller that is done with one contour's polyline before it flattens the next.
+ */
+export function getTransientPolyline(contour: Contour, toleranceMm: number): Polyline {
+  const w = flattenContour(contour, toleranceMm), { n, pieces } = w;
+  return {
+    xs: w.xs.subarray(0, n), ys: w.ys.subarray(0, n), deviationMm: w.deviation,
+    pieceFirst: w.first.subarray(0, pieces), pieceSegment: w.segment.subarray(0, pieces),
+    pieceOnCircle: w.onCircle.subarray(0, pieces), offCircleDeviationMm: w.offCircleDeviation,
+  };
+}
+
+/**
+ * The measures of `getPolylineHull(getContourPolyline(contour, toleranceMm))`, without a polyline
+ * object or the hull's vertices (the flattening is left in arrays that the next one may overwrite).
+ */
+export function getContourHullMeasures(contour: Contour, toleranceMm: number): HullMeasures {
+  const w = flattenContour(contour, toleranceMm);
+  return measureHull(w.xs, w.ys, getHullOfCoordinates(w.xs, w.ys, w.n), w.deviation);
+}
+
+/** Flattens the contour (see getContourPolyline) into the shared writer, or into one of its own
+ *  when it is huge, and returns that writer. */
+function flattenContour(contour: Contour, toleranceMm: number): PolylineWriter {
   const segments = contour.segments;
-  const w = new PolylineWriter(segments.length + (segments.length >> 2) + 64);
+  const capacity = segments.length + (segments.length >> 2) + 64;
+  let w = sharedWriter;
+  if (capacity > SHARED_WRITER_MAX) w = new PolylineWriter(capacity);
+  else if (w.xs.length < capacity || w.first.length < capacity) w = sharedWriter = new PolylineWriter(capacity);
+  w.n = 0; w.pieces = 0;
   let deviation = 0, offCircle = 0;
   let lastX = contour.startX, lastY = contour.startY;
   for (let si = 0; si < segments.length; si++) {
@@ -215,12 +326,9 @@ export function getContourPolyline(contour: Contour, toleranceMm: number): Polyl
     w.addPiece(-1, false);
     w.addPoint(lastX, lastY);
   }
-  const { n, pieces } = w;
-  return {
-    xs: w.xs.subarray(0, n), ys: w.ys.subarray(0, n), deviationMm: deviation,
-    pieceFirst: w.first.subarray(0, pieces), pieceSegment: w.segment.subarray(0, pieces),
-    pieceOnCircle: w.onCircle.subarray(0, pieces), offCircleDeviationMm: offCircle,
-  };
+  if (w === sharedWriter && (w.xs.length > SHARED_WRITER_MAX || w.first.length > SHARED_WRITER_MAX)) sharedWriter = new PolylineWriter(1024);
+  w.deviation = deviation; w.offCircleDeviation = offCircle;
+  return w;
 }
 
 /**
@@ -299,14 +407,14 @@ function pseudoAngle(dx: number, dy: number): number {
 }
 
 /** Below this many points all of them go to Andrew's chain (an outline this small is mostly hull:
- *  elimination would cost more than it saves); above, Quickhull's elimination starts from a sample's
- *  hull. */
+ *  elimination would cost more than it saves); from it on, Quickhull's elimination starts from a
+ *  sample's hull. */
 const HULL_SAMPLE_FROM = 4096;
 /** Points in that sample. */
 const HULL_SAMPLE = 2048;
 
 /**
- * The points of (xs[i], ys[i]), i < n, that may be hull vertices. A huge point set is first tested
+ * The points of (xs[i], ys[i]), i < n (n ≥ HULL_SAMPLE_FROM), that may be hull vertices. They are first tested
  * against the hull Q of an evenly spaced sample of it, around a centre c strictly inside Q (checked
  * exactly): a point in a disc about c inside Q is dropped at once; else it is located among Q's
  * edges by its pseudo-angle about c (in floating point; a wrong guess only keeps the point); inside
@@ -316,10 +424,11 @@ const HULL_SAMPLE = 2048;
  */
 function getHullCandidates(xs: Float64Array, ys: Float64Array, n: number): number[] {
   const all = () => { const a = new Int32Array(n); for (let i = 0; i < n; i++) a[i] = i; return a; };
-  if (n < HULL_SAMPLE_FROM) return Array.from(all());
   const step = Math.floor(n / HULL_SAMPLE);
   const sample = Int32Array.from({ length: Math.ceil(n / step) }, (_, k) => k * step);
-  const q = getHullIndices(xs, ys, getHullCandidatesFrom(xs, ys, sample));
+  const fromSample = getHullCandidatesFrom(xs, ys, sample);
+  const sampleHull = getHullIndices(xs, ys, fromSample, fromSample.length);
+  const q = Array.from(sampleHull.chain.subarray(0, sampleHull.count));
   const h = q.length;
   if (h < 3) return getHullCandidatesFrom(xs, ys, all());
   let cx = 0, cy = 0;
@@ -378,33 +487,144 @@ function getHullCandidates(xs: Float64Array, ys: Float64Array, n: number): numbe
   return kept;
 }
 
-/** Andrew's monotone chain over the points with the given indices (exact orient2d turns): the hull's
- *  vertex indices, counter-clockwise in y-up axes from the lexicographically least point. */
-function getHullIndices(xs: Float64Array, ys: Float64Array, indices: number[]): number[] {
-  const p = indices.sort((i, j) => xs[i]! - xs[j]! || ys[i]! - ys[j]!);
-  if (p.length < 3) return p;
-  // orient2d < 0 ⇔ counter-clockwise in y-up axes (REFERENCES.md §7.2).
-  const turnsLeft = (i: number, j: number, k: number) => orient2d(xs[i]!, ys[i]!, xs[j]!, ys[j]!, xs[k]!, ys[k]!) < 0;
-  const lower: number[] = [];
-  for (const q of p) {
-    while (lower.length >= 2 && !turnsLeft(lower[lower.length - 2]!, lower[lower.length - 1]!, q)) lower.pop();
-    lower.push(q);
+/** Index scratch of `getHullIndices`: the order being sorted, the merge's other buffer, run bounds
+ *  (then the upper chain's points), and the hull's vertex indices chain[0..count). */
+interface HullScratch { order: Int32Array; merge: Int32Array; runs: Int32Array; chain: Int32Array; count: number }
+
+const newHullScratch = (n: number): HullScratch =>
+  ({ order: new Int32Array(n), merge: new Int32Array(n), runs: new Int32Array(n + 1), chain: new Int32Array(2 * n + 2), count: 0 });
+
+/** Largest point count whose scratch is kept between calls (a larger set gets scratch of its own). */
+const SHARED_HULL_MAX = 1 << 16;
+let sharedHull = newHullScratch(1024);
+
+/** Whether point i comes before point j in (x, y) order. */
+const before = (xs: Float64Array, ys: Float64Array, i: number, j: number) => xs[i]! < xs[j]! || (xs[i] === xs[j] && ys[i]! < ys[j]!);
+
+/**
+ * Sorts order[0..n) by (x, y), stably (a stable sort's result is unique: that of Array.prototype.sort
+ * with the comparator xs[i] − xs[j] || ys[i] − ys[j], which is consistent for non-NaN coordinates):
+ * a natural merge sort [src: Knuth, TAOCP vol. 3, §5.2.4 — from memory] over the runs the input
+ * already has (a polyline's monotone pieces give long ones), without a comparator call per
+ * comparison. Returns the array holding the result (order or merge).
+ */
+function sortByXY(xs: Float64Array, ys: Float64Array, n: number, s: HullScratch): Int32Array {
+  const a = s.order, runs = s.runs;
+  // Runs: non-decreasing ones as they are, strictly decreasing ones reversed (no ties to keep in order).
+  let count = 0;
+  for (let i = 0; i < n;) {
+    let j = i + 1;
+    if (j < n && before(xs, ys, a[j]!, a[i]!)) {
+      while (j + 1 < n && before(xs, ys, a[j + 1]!, a[j]!)) j++;
+      for (let lo = i, hi = j; lo < hi; lo++, hi--) { const t = a[lo]!; a[lo] = a[hi]!; a[hi] = t; }
+      j++;
+    } else {
+      while (j < n && !before(xs, ys, a[j]!, a[j - 1]!)) j++;
+    }
+    runs[count++] = i;
+    i = j;
   }
-  const upper: number[] = [];
-  for (let k = p.length - 1; k >= 0; k--) {
-    const q = p[k]!;
-    while (upper.length >= 2 && !turnsLeft(upper[upper.length - 2]!, upper[upper.length - 1]!, q)) upper.pop();
-    upper.push(q);
+  runs[count] = n;
+  let src = a, dst = s.merge;
+  while (count > 1) {
+    let kept = 0, k = 0;
+    for (; k + 2 <= count; k += 2) {
+      const lo = runs[k]!, mid = runs[k + 1]!, hi = runs[k + 2]!;
+      let i = lo, j = mid, o = lo;
+      while (i < mid && j < hi) dst[o++] = before(xs, ys, src[j]!, src[i]!) ? src[j++]! : src[i++]!;
+      while (i < mid) dst[o++] = src[i++]!;
+      while (j < hi) dst[o++] = src[j++]!;
+      runs[kept++] = lo;
+    }
+    if (k < count) {
+      for (let i = runs[k]!; i < n; i++) dst[i] = src[i]!;
+      runs[kept++] = runs[k]!;
+    }
+    runs[kept] = n;
+    count = kept;
+    const t = src; src = dst; dst = t;
   }
-  lower.pop();
-  upper.pop();
-  return [...lower, ...upper];
+  return src;
+}
+
+/** Coordinates are 0 or of a magnitude within [EXACT_MIN, EXACT_MAX] for the split chain: orient2d's
+ *  expansions then neither underflow nor overflow, so its signs are exact. */
+const EXACT_MIN = 2 ** -300, EXACT_MAX = 2 ** 300;
+
+/**
+ * Andrew's monotone chain [src: Andrew, Inf. Process. Lett. 9 (1979) 216–219 — from memory] over
+ * the points with the given indices (all n points when null), with orient2d turns: the hull's
+ * vertex indices, counter-clockwise in y-up axes from the lexicographically least point a, in
+ * chain[0..count) of the scratch returned, which the next call may overwrite.
+ *
+ * When orient2d is exact for every point (see EXACT_MIN), the hull's vertices are determined, and
+ * so is which of a vertex's copies is kept (the lower chain keeps the last in the sorted order, the
+ * upper one the first): then only points strictly right of the line from a to the greatest point b
+ * enter the lower chain, and only points strictly left of it the upper one (no other point can be
+ * a vertex of that chain, and a point on the line between them is none of the hull's, which keeps
+ * no collinear vertex), after the comparator-free sort. Otherwise both chains take every point
+ * after Array.prototype.sort, as ever, so the answer is the same whatever orient2d gives there.
+ * Both chains share one stack.
+ */
+function getHullIndices(xs: Float64Array, ys: Float64Array, indices: readonly number[] | null, n: number): HullScratch {
+  let s = sharedHull;
+  if (n > SHARED_HULL_MAX) s = newHullScratch(n);
+  else if (s.order.length < n) s = sharedHull = newHullScratch(n);
+  const order = s.order, h = s.chain;
+  let exact = true;
+  for (let k = 0; k < n; k++) {
+    const i = indices ? indices[k]! : k;
+    order[k] = i;
+    const x = Math.abs(xs[i]!), y = Math.abs(ys[i]!);
+    if (!((x === 0 || (x >= EXACT_MIN && x <= EXACT_MAX)) && (y === 0 || (y >= EXACT_MIN && y <= EXACT_MAX)))) exact = false;
+  }
+  const p = exact ? sortByXY(xs, ys, n, s)
+    : Int32Array.from(Array.from(order.subarray(0, n)).sort((i, j) => xs[i]! - xs[j]! || ys[i]! - ys[j]!));
+  if (n < 3) {
+    for (let k = 0; k < n; k++) h[k] = p[k]!;
+    s.count = n;
+    return s;
+  }
+  // orient2d < 0 ⇔ counter-clockwise in y-up axes, so > 0 is right of a → b (REFERENCES.md §7.2).
+  const upper = s.runs;
+  const a = p[0]!, b = p[n - 1]!, ax = xs[a]!, ay = ys[a]!, bx = xs[b]!, by = ys[b]!;
+  let k = 0, u = 0;
+  h[k++] = a;
+  for (let t = 1; t < n; t++) {
+    const q = p[t]!, qx = xs[q]!, qy = ys[q]!;
+    if (t < n - 1) {
+      if (exact) {
+        const o = orient2d(ax, ay, bx, by, qx, qy);
+        if (o < 0) upper[u++] = q;
+        if (!(o > 0)) continue;
+      } else {
+        upper[u++] = q;
+      }
+    }
+    while (k >= 2 && !(orient2d(xs[h[k - 2]!]!, ys[h[k - 2]!]!, xs[h[k - 1]!]!, ys[h[k - 1]!]!, qx, qy) < 0)) k--;
+    h[k++] = q;
+  }
+  const lowest = k + 1;
+  for (let t = u; t >= 0; t--) {
+    const q = t > 0 ? upper[t - 1]! : a, qx = xs[q]!, qy = ys[q]!;
+    while (k >= lowest && !(orient2d(xs[h[k - 2]!]!, ys[h[k - 2]!]!, xs[h[k - 1]!]!, ys[h[k - 1]!]!, qx, qy) < 0)) k--;
+    h[k++] = q;
+  }
+  s.count = k - 1;
+  return s;
+}
+
+/** Hull vertex indices of the points (xs[i], ys[i]), i < n, as getHullIndices gives them. */
+function getHullOfCoordinates(xs: Float64Array, ys: Float64Array, n: number): HullScratch {
+  if (n < HULL_SAMPLE_FROM) return getHullIndices(xs, ys, null, n);
+  const candidates = getHullCandidates(xs, ys, n);
+  return getHullIndices(xs, ys, candidates, candidates.length);
 }
 
 /** Convex hull of the points (xs[i], ys[i]): counter-clockwise in y-up axes from the lexicographically
  *  least point, no collinear vertices. */
 export function getConvexHullOfCoordinates(xs: Float64Array, ys: Float64Array): [number, number][] {
-  return getHullIndices(xs, ys, getHullCandidates(xs, ys, xs.length)).map((i) => [xs[i]!, ys[i]!]);
+  return hullPoints(xs, ys, getHullOfCoordinates(xs, ys, xs.length));
 }
 
 /** Convex hull, counter-clockwise in y-up axes, no collinear vertices. */
@@ -412,13 +632,17 @@ export function getConvexHull(points: readonly (readonly [number, number])[]): [
   return getConvexHullOfCoordinates(Float64Array.from(points, (p) => p[0]), Float64Array.from(points, (p) => p[1]));
 }
 
-export interface HullFigures {
+/** Area and perimeter of a contour's convex hull, with their error bounds. */
+export interface HullMeasures {
   readonly areaMm2: number;
   readonly perimeterMm: number;
   /** The true hull's area is within [areaMm2, areaMm2 + areaErrorMm2] (0 for polygons). */
   readonly areaErrorMm2: number;
   /** The true hull's perimeter is within [perimeterMm, perimeterMm + perimeterErrorMm]. */
   readonly perimeterErrorMm: number;
+}
+
+export interface HullFigures extends HullMeasures {
   readonly points: readonly (readonly [number, number])[];
 }
 
@@ -429,14 +653,27 @@ export interface HullFigures {
  * from memory]).
  */
 export function getPolylineHull(poly: Polyline): HullFigures {
-  const h = getConvexHullOfCoordinates(poly.xs, poly.ys);
+  const { xs, ys } = poly, hull = getHullOfCoordinates(xs, ys, xs.length);
+  return { ...measureHull(xs, ys, hull, poly.deviationMm), points: hullPoints(xs, ys, hull) };
+}
+
+/** The hull's vertices. */
+function hullPoints(xs: Float64Array, ys: Float64Array, hull: HullScratch): [number, number][] {
+  const points: [number, number][] = [];
+  for (let k = 0; k < hull.count; k++) { const i = hull.chain[k]!; points.push([xs[i]!, ys[i]!]); }
+  return points;
+}
+
+/** The figures of a polyline's hull (see getHullIndices) with deviation d. */
+function measureHull(xs: Float64Array, ys: Float64Array, hull: HullScratch, d: number): HullMeasures {
+  const h = hull.chain, count = hull.count;
   let a = 0, per = 0;
-  const [ox, oy] = h[0] ?? [0, 0];
-  for (let i = 0; i < h.length; i++) {
-    const [x0, y0] = h[i]!, [x1, y1] = h[(i + 1) % h.length]!;
+  const ox = count > 0 ? xs[h[0]!]! : 0, oy = count > 0 ? ys[h[0]!]! : 0;
+  for (let i = 0; i < count; i++) {
+    const i0 = h[i]!, i1 = h[i + 1 === count ? 0 : i + 1]!;
+    const x0 = xs[i0]!, y0 = ys[i0]!, x1 = xs[i1]!, y1 = ys[i1]!;
     a += (x0 - ox) * (y1 - oy) - (x1 - ox) * (y0 - oy);
     per += getVectorLength(x1 - x0, y1 - y0);
   }
-  const d = poly.deviationMm;
-  return { areaMm2: Math.abs(a) / 2, perimeterMm: h.length > 1 ? per : 0, areaErrorMm2: d * per + Math.PI * d * d, perimeterErrorMm: 2 * Math.PI * d, points: h };
+  return { areaMm2: Math.abs(a) / 2, perimeterMm: count > 1 ? per : 0, areaErrorMm2: d * per + Math.PI * d * d, perimeterErrorMm: 2 * Math.PI * d };
 }

@@ -28,7 +28,7 @@
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getArcCircle, getContourPolyline, getPolylineHull, type Polyline } from './hull';
+import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
 import { getVectorLength } from './length';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
@@ -742,6 +742,18 @@ export interface RoundnessFigures {
 const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBoundMm: number): MeasuredCircle =>
   ({ value: { valueMm, centreXMm, centreYMm, errorBoundMm } });
 
+const undef = (reason: string) => ({ value: null, reason }) as const;
+
+/** The hull figures of a contour with these metrics, from its flattened hull's measures. */
+function toContourHull(h: HullMeasures, metrics: ContourMetrics, selfCrossing: boolean): ContourHull {
+  const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
+    : selfCrossing ? { value: null, reason: 'the contour crosses itself, so its net area is not the material area' }
+    // The flattened hull lies inside the true one (area short by ≤ areaErrorMm2), so the ratio may
+    // exceed 1 by that much; the true ratio never does (the hull contains the contour).
+    : h.areaMm2 > 0 ? { value: Math.min(1, metrics.areaMm2.value / h.areaMm2) } : { value: null, reason: 'the convex hull has no area' };
+  return { areaMm2: h.areaMm2, perimeterMm: h.perimeterMm, areaErrorMm2: h.areaErrorMm2, perimeterErrorMm: h.perimeterErrorMm, convexity };
+}
+
 /**
  * All roundness figures of one contour. `selfCrossing` comes from the file's intersections
  * (intersect.ts), computed once per analysis.
@@ -750,26 +762,19 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   const [a, b, c, d] = metrics.bboxMm;
   const size = len(c - a, d - b);
   const flatteningMm = ROUNDNESS_FLATTENING_RELATIVE * size;
-  const poly = getContourPolyline(contour, flatteningMm);
-  const hullFigures = getPolylineHull(poly);
-  const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
-    : selfCrossing ? { value: null, reason: 'the contour crosses itself, so its net area is not the material area' }
-    // The flattened hull lies inside the true one (area short by ≤ areaErrorMm2), so the ratio may
-    // exceed 1 by that much; the true ratio never does (the hull contains the contour).
-    : hullFigures.areaMm2 > 0 ? { value: Math.min(1, metrics.areaMm2.value / hullFigures.areaMm2) } : { value: null, reason: 'the convex hull has no area' };
-  const hull: ContourHull = {
-    areaMm2: hullFigures.areaMm2, perimeterMm: hullFigures.perimeterMm,
-    areaErrorMm2: hullFigures.areaErrorMm2, perimeterErrorMm: hullFigures.perimeterErrorMm, convexity,
-  };
   const deficit = metrics.deficitMm2;
   const bonnesen: Measured = selfCrossing
     ? { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' }
     : deficit.value === null ? { value: null, reason: deficit.reason } : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
-  const undef = (reason: string) => ({ value: null, reason }) as const;
   if (!metrics.closed || size === 0) {
+    // Only the hull's measures: no polyline or hull vertices are kept.
+    const hull = toContourHull(getContourHullMeasures(contour, flatteningMm), metrics, selfCrossing);
     const why = undef(metrics.closed ? 'the contour has no extent' : 'the contour is not closed');
     return { hull, roundness: { inradius: why, circumradius: why, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: why } };
   }
+  const poly = getTransientPolyline(contour, flatteningMm);
+  const hullFigures = getPolylineHull(poly);
+  const hull = toContourHull(hullFigures, metrics, selfCrossing);
   const delta = poly.deviationMm;
   const mec = getSmallestEnclosingCircle(hullFigures.points);
   const circumradius = toCircle(mec.r, mec.x, mec.y, delta);

@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { orient2d } from 'robust-predicates';
 import { arc, contourFromSegments, cubic, line, quad } from '../../../../test/support/shapes';
 import type { Contour, Segment } from '../types';
-import { getArcCircle, getContourPolyline, getConvexHull, getPolylineHull } from './hull';
+import { getArcCircle, getContourHullMeasures, getContourPolyline, getConvexHull, getPolylineHull, getTransientPolyline } from './hull';
 import { buildPieces, getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, STRIDE } from './intersectPieces';
 
 type Pt = readonly [number, number];
@@ -60,7 +60,29 @@ describe('getConvexHull', () => {
     });
     fc.assert(fc.property(cloud, (points) => { expect(getConvexHull(points)).toEqual(andrew(points)); }), { seed: 51, numRuns: 40 });
   });
+
+  it("gives Andrew's hull for small point sets in runs, with repeats, collinear points, signed zeros and infinities (reference: Andrew's chain; fast-check, seed 57)", () => {
+    // Runs up and down in (x, y) order, as a polyline's monotone pieces give them, drawn from few
+    // values so that ties abound; toEqual tells −0 from 0, so even the kept copy of a repeat must match.
+    const value = fc.oneof(fc.constantFrom(0, -0, 1, 2.5, -3), fc.integer({ min: -6, max: 6 }), fc.double({ min: -10, max: 10, noNaN: true }));
+    const run = fc.tuple(fc.array(fc.tuple(value, value), { maxLength: 40 }), fc.constantFrom('up', 'down', 'as drawn'))
+      .map(([pts, how]) => (how === 'as drawn' ? pts : andrewSorted(pts, how === 'down')));
+    const set = fc.tuple(fc.array(run, { maxLength: 6 }), fc.boolean())
+      .map(([runs, infinite]) => [...runs.flat(), ...(infinite ? [[Infinity, 1], [2, -Infinity]] as Pt[] : [])]);
+    fc.assert(fc.property(set, (points) => { expect(getConvexHull(points)).toEqual(andrew(points)); }), { seed: 57, numRuns: 600 });
+  });
+
+  it("gives Andrew's hull when a coordinate is NaN (reference: Andrew's chain, whose comparator then decides the order)", () => {
+    const points: Pt[] = [[0, 0], [3, 1], [Number.NaN, 2], [1, 4], [2, Number.NaN], [4, 4], [1, 1]];
+    expect(getConvexHull(points)).toEqual(andrew(points));
+  });
 });
+
+/** Points sorted by (x, y), ascending or descending (the order Andrew's chain sorts by). */
+function andrewSorted(points: readonly Pt[], down: boolean): Pt[] {
+  const p = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  return down ? p.reverse() : p;
+}
 
 /**
  * Reference flattening, as hull.ts did it before it took segments one at a time: every piece of
@@ -139,6 +161,31 @@ describe('getContourPolyline', () => {
     for (const tol of [1e-4, 3e-3, 0.0283]) expectReferencePolyline(contourFromSegments(segments, true), tol);
   });
 
+  it('gives the buildPieces flattening of arcs that repeat their angles at other centres, and of more angle sets than are kept (reference: flattening over buildPieces)', () => {
+    // Ten rounded corners, each drawn at three centres in turn, then again in reverse: the chord
+    // angles of a repeat come from the kept sets, and the ten sets outnumber them.
+    const corners = Array.from({ length: 10 }, (_, k) => [3 + k, (k * Math.PI) / 5, Math.PI / 2 + k / 7] as const);
+    const order = [...corners, ...corners.slice().reverse()];
+    for (const [k, [r, t0, sweep]] of order.entries()) {
+      for (const [cx, cy] of [[0, 0], [20.5, -3], [1e4 / 3, 7]] as const) {
+        const contour = contourFromSegments([arc(cx, cy, r, 0, 0, r, t0, sweep)], false);
+        expectReferencePolyline(contour, 1e-4 * (1 + (k % 3)));
+      }
+    }
+  });
+
+  it('gives a polyline whose arrays a later flattening leaves alone, and the same numbers as the transient one (reference: flattening over buildPieces)', () => {
+    const a = contourFromSegments([arc(0, 0, 5, 0, 0, 5, 0, 1), line(5, 0, 0, 0)], true);
+    const b = contourFromSegments([cubic(0, 0, 1, 3, 4, -2, 6, 1)], false);
+    const kept = getContourPolyline(a, 1e-3);
+    const transient = getTransientPolyline(a, 1e-3);
+    expect(kept).toEqual(transient);
+    getTransientPolyline(b, 1e-3);
+    const ref = referencePolyline(a, 1e-3);
+    expect(Array.from(kept.xs)).toEqual(ref.xs);
+    expect(Array.from(kept.ys)).toEqual(ref.ys);
+  });
+
   it('marks an arc piece as on a circle when its semi-axes differ by at most the tolerance, with that circle (by hand)', () => {
     const s = arc(1, 2, 3, 0, 0, 3.01, 0, Math.PI);
     const poly = getContourPolyline(contourFromSegments([s], true), 0.02);
@@ -155,5 +202,35 @@ describe('getPolylineHull', () => {
     expect(h.areaMm2).toBeCloseTo((3 * Math.sqrt(3)) / 2, 14);
     expect(h.perimeterMm).toBeCloseTo(6, 14);
     expect(h.areaErrorMm2).toBe(0);
+  });
+
+  it("gives the shoelace area and the edge lengths of Andrew's hull of the flattening, and getContourHullMeasures the same numbers (reference: Andrew's chain, shoelace formula; fast-check, seed 59)", () => {
+    const point = fc.tuple(fc.double({ min: -50, max: 50, noNaN: true }), fc.double({ min: -50, max: 50, noNaN: true }));
+    const segment: fc.Arbitrary<Segment> = fc.oneof(
+      fc.tuple(point, point).map(([a, b]) => line(a[0], a[1], b[0], b[1])),
+      fc.tuple(point, point, point, point).map(([a, b, c, d]) => cubic(a[0], a[1], b[0], b[1], c[0], c[1], d[0], d[1])),
+      fc.tuple(point, fc.double({ min: 0.5, max: 20, noNaN: true }), fc.double({ min: -7, max: 7, noNaN: true }), fc.double({ min: -2 * Math.PI, max: 2 * Math.PI, noNaN: true }))
+        .map(([c, r, t0, sweep]) => arc(c[0], c[1], r, 0, 0, r, t0, sweep)),
+    );
+    const contour = fc.tuple(fc.array(segment, { maxLength: 6 }), fc.boolean(), fc.double({ min: 1e-4, max: 0.1, noNaN: true }));
+    fc.assert(fc.property(contour, ([segments, closed, tol]) => {
+      const c = contourFromSegments(segments, closed, [1, 2]);
+      const poly = getContourPolyline(c, tol);
+      const hull = andrew(Array.from(poly.xs, (x, i) => [x, poly.ys[i]!] as const));
+      let area = 0, perimeter = 0;
+      const [ox, oy] = hull[0] ?? [0, 0];
+      for (let i = 0; i < hull.length; i++) {
+        const [x0, y0] = hull[i]!, [x1, y1] = hull[(i + 1) % hull.length]!;
+        area += (x0 - ox) * (y1 - oy) - (x1 - ox) * (y0 - oy);
+        perimeter += Math.hypot(x1 - x0, y1 - y0);
+      }
+      const d = poly.deviationMm;
+      const expected = {
+        areaMm2: Math.abs(area) / 2, perimeterMm: hull.length > 1 ? perimeter : 0,
+        areaErrorMm2: d * perimeter + Math.PI * d * d, perimeterErrorMm: 2 * Math.PI * d,
+      };
+      expect(getPolylineHull(poly)).toEqual({ ...expected, points: hull });
+      expect(getContourHullMeasures(c, tol)).toEqual(expected);
+    }), { seed: 59, numRuns: 300 });
   });
 });

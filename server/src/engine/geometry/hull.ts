@@ -6,10 +6,13 @@
  * chords with m from Wang's formula m ≥ √(d(d−1)·M/(8δ)) (REFERENCES.md §4.6), an arc piece m chords
  * with sagitta r(1 − cos(Δθ/2m)) ≤ δ (r = the semi-major axis a). Every curve point is then within
  * δ of the polyline and vice versa. The polyline is kept in flat arrays and built one segment at a
- * time, so a contour of a million segments costs no object per vertex.
+ * time, so a contour of a million segments costs no object per vertex; contours that fit share one
+ * set of arrays (most are small: a file of 250 000 small outlines would otherwise allocate and grow
+ * arrays 250 000 times), and arcs that repeat their chord angles share their cosines and sines.
  * Hull: Andrew's monotone chain with exact orient2d turns [src: Andrew, Inf. Process. Lett. 9 (1979)
  * 216–219 — from memory; de Berg et al. 2008 §1.1], over the points that Quickhull's elimination
- * (exact, see getHullCandidates) leaves: a huge outline keeps a few per cent of its vertices.
+ * (exact, see getHullCandidates) leaves: a huge outline keeps a few per cent of its vertices. Index
+ * arrays and their sort need no comparator closure and no object per point.
  */
 import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
@@ -202,7 +205,8 @@ const chordAngles: ChordAngles[] = [];
 let nextChordAngles = 0;
 
 /** The chord angles' cosines and sines for (th0, th1, m), computed as getPiecePoint computes them
- *  (so to the bit) or taken from a set kept from an earlier piece with the same three numbers. */
+ *  (so to the bit) or taken from a set kept from an earlier piece with the same three numbers (a
+ *  zero of either sign matches both: θ0 + (j/m)(θ1 − θ0) is the same for them when m > 1). */
 function getChordAngles(th0: number, th1: number, m: number): ChordAngles {
   for (const c of chordAngles) if (c.th0 === th0 && c.th1 === th1 && c.m === m) return c;
   let c = chordAngles[nextChordAngles];

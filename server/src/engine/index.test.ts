@@ -1,0 +1,28 @@
+import { describe, expect, it } from 'vitest';
+import { wrapSvg } from '../../../test/support/checkCases';
+import { analyze } from './index';
+
+describe('analyze', () => {
+  it('sorts findings by span start, then end, and keeps the check order for equal spans', () => {
+    // The last lineto repeats the point before it and ends on the start: near-closed ("touching")
+    // and zero-length-segment cover the same text; near-closed runs first.
+    const text = wrapSvg('<path d="M0 0 L10 0 L10 10 L0 0 L0 0"/><path d="M20 0 L30 0 L30 30"/>');
+    const { findings } = analyze(text, 'svg');
+    const at = findings.map((f) => [f.checkId, text.slice(f.span.start, f.span.end)]);
+    expect(at).toEqual([
+      ['near-closed', 'L0 0'],
+      ['zero-length-segment', 'L0 0'],
+      ['open-contour', 'L30 30'],
+    ]);
+    for (let i = 1; i < findings.length; i++) {
+      const a = findings[i - 1]!.span, b = findings[i]!.span;
+      expect(a.start < b.start || (a.start === b.start && a.end <= b.end)).toBe(true);
+    }
+  });
+
+  it('leaves out checks set to off and applies severity overrides', () => {
+    const text = wrapSvg('<path d="M0 0 L10 0 L10 10 L0 0 L0 0"/>');
+    const { findings } = analyze(text, 'svg', { severity: { 'near-closed': 'off', 'zero-length-segment': 'error' } });
+    expect(findings.map((f) => [f.checkId, f.severity, f.message])).toEqual([['zero-length-segment', 'error', 'Segment of contour #0 has zero length (0 mm).']]);
+  });
+});

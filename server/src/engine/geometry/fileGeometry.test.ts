@@ -69,6 +69,21 @@ describe('the file geometry in the analysis result', () => {
     expect(JSON.stringify(r, (_, v) => (typeof v === 'number' && !Number.isFinite(v) ? 'NOT FINITE' : v))).not.toContain('NOT FINITE');
   });
 
+  it('gives contours that meet nothing one shared, frozen empty list each, and the others their own', () => {
+    // A bow-tie (crossing at its centre), two squares sharing an edge, and a lone square.
+    const r = analyzeSvg('<path d="M0 0 L20 20 L20 0 L0 20 Z"/><rect x="30" width="10" height="10"/><rect x="40" width="10" height="10"/><rect x="60" width="10" height="10"/>');
+    const [bowTie, left, right, lone] = r.contours.map((c) => c.geometry);
+    expect(bowTie!.selfIntersections).toHaveLength(1);
+    expect([left!.overlaps.length, right!.overlaps.length]).toEqual([1, 1]);
+    expect(Object.isFrozen(bowTie!.selfIntersections)).toBe(false);
+    for (const list of [bowTie!.overlaps, left!.selfIntersections, lone!.selfIntersections, lone!.overlaps]) {
+      expect(list).toEqual([]);
+      expect(Object.isFrozen(list)).toBe(true);
+    }
+    expect(lone!.selfIntersections).toBe(left!.selfIntersections);
+    expect(lone!.overlaps).toBe(bowTie!.overlaps);
+  });
+
   it('stops between stages when cancelled (AnalysisOptions.isCancelled)', () => {
     let polls = 0;
     // Polls 1 and 2 come after reading and measuring; the third is the first inside the geometry.

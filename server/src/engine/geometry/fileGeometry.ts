@@ -8,6 +8,10 @@ import { findIntersections, type IntersectionResult } from './intersect';
 import { getFileSummary, getNesting, type Nesting } from './nesting';
 import { getRoundness } from './roundness';
 
+/** The lists of every contour that has no self-intersection, or no overlap (frozen: shared). */
+const NO_SELF_INTERSECTIONS: readonly SelfIntersection[] = Object.freeze([]);
+const NO_OVERLAPS: readonly ContourOverlap[] = Object.freeze([]);
+
 export interface FileGeometry {
   /** Places in it are positions in the analysed contour list (equal to contour indices). */
   readonly intersections: IntersectionResult;
@@ -31,31 +35,35 @@ export function getFileGeometry(
   const nesting = getNesting(contours);
   checkCancelled();
 
-  const self: SelfIntersection[][] = contours.map(() => []);
+  // Most contours meet nothing: they share one frozen empty list, and only contours with
+  // intersections or overlaps get their own.
+  const self: (SelfIntersection[] | undefined)[] = new Array(contours.length);
   for (const x of intersections.intersections) {
     if (x.a.contour !== x.b.contour) continue;
-    self[x.b.contour]!.push({ xMm: x.x, yMm: x.y, kind: x.kind, span: x.b.span, otherSpan: x.a.span });
+    (self[x.b.contour] ??= []).push({ xMm: x.x, yMm: x.y, kind: x.kind, span: x.b.span, otherSpan: x.a.span });
   }
-  const overlaps: ContourOverlap[][] = contours.map(() => []);
+  const overlaps: (ContourOverlap[] | undefined)[] = new Array(contours.length);
   for (const o of intersections.overlaps) {
     const a = contours[o.a.contour]!.contour.index, b = contours[o.b.contour]!.contour.index;
-    overlaps[o.b.contour]!.push({ otherContour: a, lengthMm: o.length, span: o.b.span, otherSpan: o.a.span });
-    if (o.a.contour !== o.b.contour) overlaps[o.a.contour]!.push({ otherContour: b, lengthMm: o.length, span: o.a.span, otherSpan: o.b.span });
+    (overlaps[o.b.contour] ??= []).push({ otherContour: a, lengthMm: o.length, span: o.b.span, otherSpan: o.a.span });
+    if (o.a.contour !== o.b.contour) (overlaps[o.a.contour] ??= []).push({ otherContour: b, lengthMm: o.length, span: o.a.span, otherSpan: o.b.span });
   }
 
-  const perContour: ContourGeometry[] = [];
-  contours.forEach(({ contour, metrics }, pos) => {
-    const selfCrossing = self[pos]!.some((x) => x.kind === 'crossing');
+  const perContour: ContourGeometry[] = new Array(contours.length);
+  for (let pos = 0; pos < contours.length; pos++) {
+    const { contour, metrics } = contours[pos]!;
+    const selfIntersections = self[pos] ?? NO_SELF_INTERSECTIONS;
+    const selfCrossing = selfIntersections.some((x) => x.kind === 'crossing');
     const { roundness, hull } = getRoundness(contour, metrics, selfCrossing);
-    perContour.push({
-      selfIntersections: self[pos]!,
-      overlaps: overlaps[pos]!,
+    perContour[pos] = {
+      selfIntersections,
+      overlaps: overlaps[pos] ?? NO_OVERLAPS,
       parent: nesting.parent[pos] ?? null,
       depth: nesting.depth[pos] ?? 0,
       roundness,
       hull,
-    });
+    };
     checkCancelled();
-  });
+  }
   return { intersections, nesting, contours: perContour, summary: getFileSummary(contours, nesting) };
 }

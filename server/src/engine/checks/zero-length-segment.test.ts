@@ -22,6 +22,11 @@ checkCases(zeroLengthSegment, {
       findings: [{ messageId: 'zero', at: 'l0,0', data: { lengthMm: 0 } }],
     },
     {
+      name: 'a quadratic whose control points all coincide',
+      svg: '<path d="M0 0 H10 Q10 0 10 0 V10 Z"/>',
+      findings: [{ messageId: 'zero', at: 'Q10 0 10 0', data: { lengthMm: 0 } }],
+    },
+    {
       name: 'an arc that ends where it starts',
       svg: '<path d="M0 0 H10 A5 5 0 0 1 10 0 V10 Z"/>',
       findings: [{ messageId: 'zero', at: 'A5 5 0 0 1 10 0', data: { lengthMm: 0 } }],

@@ -4,7 +4,7 @@
  * import for "measure a segment".
  */
 import { CompensatedSum, getSegmentArea } from './area';
-import { getSegmentEnd, setSegmentBounds, type Box } from './bounds';
+import { setSegmentBounds, type Box } from './bounds';
 import { getSegmentLengthFlagged, getVectorLength } from './length';
 import type { Contour, ContourMetrics, Measured, YAxis } from '../types';
 
@@ -44,11 +44,20 @@ const OVERFLOW: Measured = { value: null, reason: 'numeric overflow' };
  *   counter-clockwise for y-up files (types.ts convention); null when the area is undefined or 0.
  */
 export function measureContourDetailed(contour: Contour, yAxis: YAxis): DetailedContourMetrics {
+  const flags = { depthCapped: false };
+  const metrics = measure(contour, yAxis, flags);
+  return { metrics, lengthDepthCapped: flags.depthCapped };
+}
+
+/** Scratch box of measure (filled per segment, read at once; nothing is kept between calls). */
+const segmentBox: Box = [0, 0, 0, 0];
+
+/** measureContourDetailed's figures; sets `flags.depthCapped` when a Bézier length hit its cap. */
+function measure(contour: Contour, yAxis: YAxis, flags: { depthCapped: boolean }): ContourMetrics {
   const { segments, closed, startX, startY } = contour;
   const length = new CompensatedSum();
   const area = new CompensatedSum();
-  const flags = { depthCapped: false };
-  const box: Box = [0, 0, 0, 0];
+  const box = segmentBox;
   let minX = startX, minY = startY, maxX = startX, maxY = startY;
   let endX = startX, endY = startY;
   for (let i = 0; i < segments.length; i++) {
@@ -62,8 +71,19 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
     if (box[3] > maxY) maxY = box[3];
   }
   const last = segments[segments.length - 1];
-  if (last !== undefined) [endX, endY] = getSegmentEnd(last);
-  const lengthDepthCapped = flags.depthCapped;
+  if (last !== undefined) {
+    switch (last.kind) {
+      case 'line':
+      case 'arc':
+        endX = last.x1; endY = last.y1;
+        break;
+      case 'quad':
+        endX = last.x2; endY = last.y2;
+        break;
+      case 'cubic':
+        endX = last.x3; endY = last.y3;
+    }
+  }
   const endToStart = getVectorLength(startX - endX, startY - endY);
   if (closed) length.add(endToStart);
   const lengthMm = length.value;
@@ -98,20 +118,17 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
   }
 
   return {
-    metrics: {
-      closed,
-      gapMm: closed ? 0 : endToStart,
-      lengthMm,
-      perimeterMm,
-      signedAreaMm2,
-      areaMm2,
-      orientation,
-      q,
-      deficitMm2,
-      bboxMm: [minX, minY, maxX, maxY],
-      segmentCount: segments.length,
-    },
-    lengthDepthCapped,
+    closed,
+    gapMm: closed ? 0 : endToStart,
+    lengthMm,
+    perimeterMm,
+    signedAreaMm2,
+    areaMm2,
+    orientation,
+    q,
+    deficitMm2,
+    bboxMm: [minX, minY, maxX, maxY],
+    segmentCount: segments.length,
   };
 }
 
@@ -122,5 +139,5 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
  * that need it use measureContourDetailed.
  */
 export function measureContour(contour: Contour, yAxis: YAxis): ContourMetrics {
-  return measureContourDetailed(contour, yAxis).metrics;
+  return measure(contour, yAxis, { depthCapped: false });
 }

@@ -42,19 +42,23 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   // Testers are built on first use: a contour whose box meets no other closed contour's box needs none.
   const testers: (WindingTester | undefined)[] = new Array(n);
   const tester = (i: number) => (testers[i] ??= createWindingTester(contours[i]!.contour));
-  const closed = contours.map((c) => c.metrics.closed && c.contour.segments.length > 0);
+  // Positions of the closed contours with something drawn, in order: the only containers, holes and outer boundaries.
+  const indexed: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const c = contours[i]!;
+    if (c.metrics.closed && c.contour.segments.length > 0) indexed.push(i);
+  }
   const parent: (number | null)[] = new Array(n).fill(null);
   const depth: number[] = new Array(n).fill(0);
-  const indexed = contours.map((_, i) => i).filter((i) => closed[i]);
-  const tree = indexed.length > 0 ? new Flatbush(indexed.length) : null;
+  if (indexed.length === 0) return { parent, depth, parts: [] };
+  const tree = new Flatbush(indexed.length);
   for (const i of indexed) {
     const [a, b, c, d] = contours[i]!.metrics.bboxMm;
-    tree!.add(a, b, c, d);
+    tree.add(a, b, c, d);
   }
-  tree?.finish();
+  tree.finish();
   const area = (i: number) => contours[i]!.metrics.areaMm2.value ?? 0;
   for (let i = 0; i < n; i++) {
-    if (!tree) break;
     const [minX, minY, maxX, maxY] = contours[i]!.metrics.bboxMm;
     if (tree.search(minX, minY, maxX, maxY).every((k) => indexed[k] === i)) continue;
     const samples = samplePoints(tester(i));
@@ -79,16 +83,16 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   }
   // Holes per outer boundary, in contour order, gathered in one pass.
   const holesOf = new Map<number, number[]>();
-  for (let k = 0; k < n; k++) {
+  for (const k of indexed) {
     const p = parent[k];
-    if (!closed[k] || depth[k]! % 2 !== 1 || p === null || p === undefined) continue;
+    if (depth[k]! % 2 !== 1 || p === null || p === undefined) continue;
     const list = holesOf.get(p);
     if (list) list.push(k);
     else holesOf.set(p, [k]);
   }
   const parts: Part[] = [];
-  for (let i = 0; i < n; i++) {
-    if (!closed[i] || depth[i]! % 2 !== 0) continue;
+  for (const i of indexed) {
+    if (depth[i]! % 2 !== 0) continue;
     const holes = holesOf.get(i) ?? [];
     const o = contours[i]!.metrics.orientation;
     const orientations = holes.map((h) => contours[h]!.metrics.orientation);
@@ -100,15 +104,26 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
       orientationConsistent: consistent,
     });
   }
-  return { parent: parent.map((p) => (p === null ? null : contours[p]!.contour.index)), depth, parts };
+  // Positions to contour indices, in place.
+  for (let i = 0; i < n; i++) {
+    const p = parent[i];
+    if (p !== null && p !== undefined) parent[i] = contours[p]!.contour.index;
+  }
+  return { parent, depth, parts };
 }
 
 export function getFileSummary(contours: readonly MeasuredContour[], nesting: Nesting = getNesting(contours)): FileSummary {
+  let pierces = 0, cutLengthMm = 0;
+  for (let i = 0; i < contours.length; i++) {
+    const c = contours[i]!;
+    if (c.contour.segments.length > 0) pierces++;
+    cutLengthMm += c.metrics.lengthMm;
+  }
   return {
     contours: contours.length,
     parts: nesting.parts.length,
-    pierces: contours.filter((c) => c.contour.segments.length > 0).length,
-    cutLengthMm: contours.reduce((s, c) => s + c.metrics.lengthMm, 0),
+    pierces,
+    cutLengthMm,
     netAreaMm2: nesting.parts.reduce((s, p) => s + p.netAreaMm2, 0),
   };
 }

@@ -7,7 +7,7 @@ import { fillTemplate } from './format';
 import { readDxf } from './formats/dxf/readDxf';
 import { readSvg } from './formats/svg/readSvg';
 import { getFileGeometry } from './geometry/fileGeometry';
-import { measureContour } from './geometry/measure';
+import { measureContourDetailed } from './geometry/measure';
 import { DEFAULT_NEAR_CLOSED_TOLERANCE_MM } from './geometry/tolerances';
 import type {
   AnalysisOptions,
@@ -98,9 +98,12 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   // Each contour's result object is made once: measured here, its geometry set below (a spread into
   // a second object per contour cost ~0.5 s and 10 MB at 250 000 contours).
   const slots: ContourSlot[] = new Array(readResult.contours.length);
+  const shortestSegmentMm = new Float64Array(slots.length);
   for (let i = 0; i < slots.length; i++) {
     const contour = readResult.contours[i]!;
-    slots[i] = { contour, metrics: measureContour(contour, readResult.yAxis), geometry: null };
+    const measured = measureContourDetailed(contour, readResult.yAxis);
+    slots[i] = { contour, metrics: measured.metrics, geometry: null };
+    shortestSegmentMm[i] = measured.shortestSegmentMm;
   }
   checkCancelled();
   const geometry = getFileGeometry(slots, checkCancelled, options.isCancelled);
@@ -124,6 +127,7 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
       read: readResult,
       contours,
       geometry,
+      shortestSegmentMm,
       options,
       report: (f) => findings.push(Object.assign({}, f, { checkId, severity: setting, message: fillTemplate(messages[f.messageId] ?? f.messageId, f.data) })),
     });

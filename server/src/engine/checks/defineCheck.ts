@@ -7,6 +7,8 @@ export interface CheckContext {
   readonly read: ReadResult;
   readonly contours: readonly ContourResult[];
   readonly geometry: FileGeometry;
+  /** Per contour (by position): the length of its shortest segment, as measured (see DetailedContourMetrics). */
+  readonly shortestSegmentMm: Float64Array;
   readonly options: AnalysisOptions;
   report(finding: Omit<RawFinding, 'checkId'>): void;
 }

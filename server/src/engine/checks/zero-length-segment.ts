@@ -25,7 +25,10 @@ export default defineCheck({
     zero: 'Segment of contour #{contour} has zero length ({lengthMm} mm).',
   },
   run(ctx) {
-    for (const { contour } of ctx.contours) {
+    for (let pos = 0; pos < ctx.contours.length; pos++) {
+      // The measures know each contour's shortest segment: a contour whose segments are all long enough needs no look.
+      if (ctx.shortestSegmentMm[pos]! >= ZERO_LENGTH_MM) continue;
+      const { contour } = ctx.contours[pos]!;
       for (const segment of contour.segments) {
         // A curve is never shorter than its chord, so only a segment whose ends (nearly) meet needs its length.
         if (getChord(segment) >= ZERO_LENGTH_MM) continue;

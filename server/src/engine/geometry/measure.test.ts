@@ -176,6 +176,15 @@ describe('measureContour definitions', () => {
     expect(big.q).toEqual({ value: null, reason: 'numeric overflow' });
   });
 
+  it('knows the shortest segment, with getSegmentLength\'s value: Infinity without segments, NaN once a length is NaN', () => {
+    const detailed = (segments: Segment[]) => measureContourDetailed(contourFromSegments(segments, false), 'up').shortestSegmentMm;
+    // Lines 5 (3-4-5), 2 and 7 long; each half of a circle of radius 1 is π long (REFERENCES.md §2.4).
+    expect(detailed([line(0, 0, 3, 4), line(3, 4, 5, 4), line(5, 4, 12, 4)])).toBe(2);
+    expect(detailed([line(0, 0, 3, 4), ...circleArcs(10, 10, 1, 2)])).toBe(Math.PI);
+    expect(detailed([])).toBe(Infinity);
+    expect(detailed([line(0, 0, 3, 4), line(3, 4, NaN, 4), line(NaN, 4, 3, 4), line(3, 4, 3, 4)])).toBeNaN();
+  });
+
   it('reports no depth cap for ordinary curves', () => {
     expect(measureContourDetailed(contourFromSegments(fourCubicCircle(0, 0, 1), true), 'up').lengthDepthCapped).toBe(false);
   });

@@ -19,6 +19,14 @@ export interface DetailedContourMetrics {
   readonly metrics: ContourMetrics;
   /** True when some Bézier length stopped at BEZIER_LENGTH_MAX_DEPTH (see LengthEstimate). */
   readonly lengthDepthCapped: boolean;
+  /** Length of the shortest segment (getSegmentLength's value): Infinity when there is none, NaN when a length is NaN. */
+  readonly shortestSegmentMm: number;
+}
+
+/** What measuring a contour learns beside its figures. */
+interface MeasureFacts {
+  depthCapped: boolean;
+  shortestSegmentMm: number;
 }
 
 const OPEN: Measured = { value: null, reason: 'open contour' };
@@ -44,25 +52,28 @@ const OVERFLOW: Measured = { value: null, reason: 'numeric overflow' };
  *   counter-clockwise for y-up files (types.ts convention); null when the area is undefined or 0.
  */
 export function measureContourDetailed(contour: Contour, yAxis: YAxis): DetailedContourMetrics {
-  const flags = { depthCapped: false };
-  const metrics = measure(contour, yAxis, flags);
-  return { metrics, lengthDepthCapped: flags.depthCapped };
+  const facts: MeasureFacts = { depthCapped: false, shortestSegmentMm: Infinity };
+  const metrics = measure(contour, yAxis, facts);
+  return { metrics, lengthDepthCapped: facts.depthCapped, shortestSegmentMm: facts.shortestSegmentMm };
 }
 
 /** Scratch box of measure (filled per segment, read at once; nothing is kept between calls). */
 const segmentBox: Box = [0, 0, 0, 0];
 
-/** measureContourDetailed's figures; sets `flags.depthCapped` when a Bézier length hit its cap. */
-function measure(contour: Contour, yAxis: YAxis, flags: { depthCapped: boolean }): ContourMetrics {
+/** measureContourDetailed's figures; `facts` (fresh) learns the depth cap and the shortest segment. */
+function measure(contour: Contour, yAxis: YAxis, facts: MeasureFacts): ContourMetrics {
   const { segments, closed, startX, startY } = contour;
   const length = new CompensatedSum();
   const area = new CompensatedSum();
   const box = segmentBox;
   let minX = startX, minY = startY, maxX = startX, maxY = startY;
   let endX = startX, endY = startY;
+  let shortest = Infinity; // NaN, once met, stays
   for (let i = 0; i < segments.length; i++) {
     const s = segments[i]!;
-    length.add(getSegmentLengthFlagged(s, flags));
+    const segmentLength = getSegmentLengthFlagged(s, facts);
+    length.add(segmentLength);
+    if (segmentLength < shortest || segmentLength !== segmentLength) shortest = segmentLength;
     area.add(getSegmentArea(s, startX, startY));
     setSegmentBounds(s, box);
     if (box[0] < minX) minX = box[0];
@@ -84,6 +95,7 @@ function measure(contour: Contour, yAxis: YAxis, flags: { depthCapped: boolean }
         endX = last.x3; endY = last.y3;
     }
   }
+  facts.shortestSegmentMm = shortest;
   const endToStart = getVectorLength(startX - endX, startY - endY);
   if (closed) length.add(endToStart);
   const lengthMm = length.value;
@@ -139,5 +151,5 @@ function measure(contour: Contour, yAxis: YAxis, flags: { depthCapped: boolean }
  * that need it use measureContourDetailed.
  */
 export function measureContour(contour: Contour, yAxis: YAxis): ContourMetrics {
-  return measure(contour, yAxis, { depthCapped: false });
+  return measure(contour, yAxis, { depthCapped: false, shortestSegmentMm: Infinity });
 }

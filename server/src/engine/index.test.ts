@@ -25,4 +25,14 @@ describe('analyze', () => {
     const { findings } = analyze(text, 'svg', { severity: { 'near-closed': 'off', 'zero-length-segment': 'error' } });
     expect(findings.map((f) => [f.checkId, f.severity, f.message])).toEqual([['zero-length-segment', 'error', 'Segment of contour #0 has zero length (0 mm).']]);
   });
+
+  it('interleaves the findings of different checks by position', () => {
+    // Open contours (open-contour) and repeated points (zero-length-segment) alternate in the text,
+    // apart by comments of growing length; each check reports in document order, the sort interleaves.
+    const pads = [0, 100, 3000, 70_000, 20, 10];
+    const body = pads.map((pad, i) => `<!--${' '.repeat(pad)}--><g transform="translate(${50 * i})">` + (i % 2 === 0 ? '<path d="M0 0 L10 0 L10 20"/>' : '<path d="M0 0 L10 0 L10 0 L0 20Z"/>') + '</g>');
+    const { findings } = analyze(wrapSvg(body.join('')), 'svg');
+    expect(findings.map((f) => f.checkId)).toEqual(['open-contour', 'zero-length-segment', 'open-contour', 'zero-length-segment', 'open-contour', 'zero-length-segment']);
+    for (let i = 1; i < findings.length; i++) expect(findings[i - 1]!.span.start).toBeLessThan(findings[i]!.span.start);
+  });
 });

@@ -63,6 +63,48 @@ describe('GroupScanner', () => {
     expect(parseDecimal('x-12.50', 1, 7)).toBe(-12.5);
   });
 
+  it('reads every pair as a line-by-line reading does: offsets, trimmed ends, line numbers and numbers (REFERENCES.md §6.1, §6.2)', () => {
+    // Seeded pairs of every shape the one-pass path meets or declines: padded codes, LF and CRLF,
+    // trailing blanks, tabs, blank and signed values, exponents, names, integers holding fractions,
+    // and a last value line with or without its line end. Expected: the text split into lines.
+    let seed = 11;
+    const rand = (k: number) => Math.floor(((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31) * k);
+    const pick = <T,>(xs: readonly T[]) => xs[rand(xs.length)];
+    const codes = [0, 8, 10, 20, 40, 62, 70, 90, 210, 290, 330, 999, 1010, 1071, 12345];
+    const values = ['LINE', ' CUT ', '', '  ', '1.5', '-0', '+7', '.5', '5.', '-', '1e3', '12 ', '\t-3.25', '3.0', '2.5', '00042', '9007199254740993', 'x1'];
+    for (let round = 0; round < 200; round++) {
+      const lines: string[] = [];
+      for (let k = rand(12); k >= 0; k--) {
+        lines.push(`${pick(['', ' ', '  '])}${pick(codes)}${pick(['', ' ', '\t', '\r'])}`, `${pick(values)}${pick(['', ' ', '\r', '\t '])}`);
+      }
+      const text = lines.map((l) => `${l}${pick(['\n', '\r\n'])}`).join('').replace(/\r?\n$/, rand(2) ? '' : '\n');
+      const sc = new GroupScanner(text);
+      const got: unknown[] = [];
+      while (sc.next()) got.push([sc.code, sc.codeStart, sc.codeEnd, sc.codeLine, sc.valueStart, sc.valueEnd, sc.pairEnd, sc.number]);
+      // The reference: lines and their offsets, each line's end trimmed of blanks.
+      const starts = [0];
+      for (let i = 0; i < text.length; i++) if (text[i] === '\n') starts.push(i + 1);
+      const lineEnd = (k: number) => {
+        let e = k + 1 < starts.length ? starts[k + 1] - 1 : text.length;
+        while (e > starts[k] && ' \t\r'.includes(text[e - 1])) e--;
+        return e;
+      };
+      const expected: unknown[] = [];
+      // A pair needs its value line: an empty last line without its line end is no line (a truncated pair).
+      for (let k = 0; 2 * k + 1 < lines.length && starts[2 * k + 1] < text.length; k++) {
+        const c = 2 * k, v = 2 * k + 1;
+        const code = Number(text.slice(starts[c], lineEnd(c)));
+        const raw = text.slice(starts[v], lineEnd(v));
+        const kind = getGroupValueKind(code);
+        let number = kind === 'string' || raw.trim() === '' ? Number.NaN : Number(raw);
+        if (!Number.isFinite(number) || (kind !== 'float' && !Number.isInteger(number))) number = Number.NaN;
+        const pairEnd = v + 1 < starts.length ? starts[v + 1] : text.length;
+        expected.push([code, starts[c], lineEnd(c), c, starts[v], lineEnd(v), pairEnd, number]);
+      }
+      expect(got, JSON.stringify(text)).toEqual(expected);
+    }
+  });
+
   it('reads names as String.prototype.trim does, one string per repeated name (ECMA-262 trim)', () => {
     const names = ['LINE', ' LINE', 'LINE', '\u00a0ARC', 'ARC\u00a0', 'A B', '', '  ', 'ÉCROU', 'LINE'];
     const sc = new GroupScanner(names.map((v) => `0\n${v}\n`).join(''));

@@ -232,8 +232,92 @@ export class GroupScanner {
     return true;
   }
 
-  /** Advances to the next group pair. Returns false at the end of the text. */
+  /**
+   * Advances to the next group pair. Returns false at the end of the text.
+   *
+   * The common pair (a code line of digits after optional spaces, a value line ending in LF, a numeric
+   * value a plain decimal) is read in one pass over its characters, the number parsed as `parseDecimal`
+   * does; any other pair is read by `nextPair` from the same place.
+   */
   next(): boolean {
+    const text = this.text;
+    const n = text.length;
+    const cs = this.pos;
+    let i = cs;
+    let c = i < n ? text.charCodeAt(i) : -1;
+    while (c === SPACE) c = ++i < n ? text.charCodeAt(i) : -1;
+    const digitsAt = i;
+    let code = 0;
+    while (c >= 48 && c <= 57) {
+      code = code * 10 + (c - 48);
+      c = ++i < n ? text.charCodeAt(i) : -1;
+    }
+    const ce = i;
+    while (c === SPACE || c === TAB || c === CR) c = ++i < n ? text.charCodeAt(i) : -1;
+    // A code line of digits ending in LF, and a value line after it.
+    if (ce === digitsAt || c !== LF || i + 1 >= n) return this.nextPair();
+    const vs = i + 1;
+    const kind = code < KIND_TABLE_SIZE ? KIND_TABLE[code] : 0;
+    // The value line's trimmed end, −1 until known.
+    let ve = -1;
+    let value = Number.NaN;
+    let parsed = kind === 0;
+    i = vs;
+    if (kind !== 0) {
+      // The number as parseDecimal reads it: blanks, sign, digits, point, digits, then only blanks.
+      c = text.charCodeAt(i);
+      while (c === SPACE || c === TAB) c = ++i < n ? text.charCodeAt(i) : -1;
+      const sign = c;
+      if (c === MINUS || c === PLUS) c = ++i < n ? text.charCodeAt(i) : -1;
+      let m = 0, digits = 0, decimals = 0;
+      while (c >= 48 && c <= 57) {
+        m = m * 10 + (c - 48);
+        digits++;
+        c = ++i < n ? text.charCodeAt(i) : -1;
+      }
+      if (c === POINT) {
+        c = ++i < n ? text.charCodeAt(i) : -1;
+        while (c >= 48 && c <= 57) {
+          m = m * 10 + (c - 48);
+          digits++;
+          decimals++;
+          c = ++i < n ? text.charCodeAt(i) : -1;
+        }
+      }
+      const numberEnd = i;
+      while (c === SPACE || c === TAB || c === CR) c = ++i < n ? text.charCodeAt(i) : -1;
+      if ((c === LF || c === -1) && digits > 0) {
+        ve = numberEnd;
+        if (m < 2 ** 53 && decimals < POWERS_OF_TEN.length) {
+          value = decimals === 0 ? m : m / POWERS_OF_TEN[decimals];
+          if (sign === MINUS) value = -value;
+          parsed = kind === 1 || Number.isInteger(value);
+        }
+      }
+    }
+    if (ve < 0) {
+      // Any other value line: its end, trailing blanks trimmed (`convert` reads a number that is not plain).
+      let nl = text.indexOf('\n', i);
+      if (nl < 0) nl = n;
+      i = nl;
+      ve = nl;
+      while (ve > vs && isBlank(text.charCodeAt(ve - 1))) ve--;
+    }
+    this.code = code;
+    this.codeStart = cs;
+    this.codeEnd = ce;
+    this.codeLine = this.line;
+    this.valueStart = vs;
+    this.valueEnd = ve;
+    this.pairEnd = i < n ? i + 1 : n;
+    this.pos = this.pairEnd;
+    this.line += 2;
+    this.number = parsed ? value : this.convert(kind === 2);
+    return true;
+  }
+
+  /** `next` for any pair: line by line, reporting what is malformed. */
+  private nextPair(): boolean {
     for (;;) {
       // Skip blank lines between pairs only at the very end of the file (a trailing newline).
       if (!this.readLine()) return false;

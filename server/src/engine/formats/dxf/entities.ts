@@ -46,7 +46,8 @@ export interface EntityBase {
   /** 0-based line of the entity's `0` group. */
   readonly line: number;
   readonly layer: string;
-  readonly handle?: string;
+  /** Where the handle (group 5) is written: the handle is the trimmed text of this span. */
+  readonly handleSpan?: SourceSpan;
   /** Group 67 = 1: the entity belongs to a paper-space layout. */
   readonly paperSpace: boolean;
   /** Extrusion direction (210/220/230), default (0, 0, 1). */
@@ -99,9 +100,14 @@ export type DocumentSoFar = Pick<DxfDocument, 'insunits' | 'headerSpan' | 'layer
 
 /**
  * Receives each entity of the ENTITIES section as soon as it is read, instead of collecting them:
- * the records then die young, which keeps a million-entity file's memory and garbage collection low.
+ * LINE, ARC and CIRCLE as numbers in one reused `SimpleEntity` (no object per entity), the others as
+ * records, which then die young. A million-entity file's memory and garbage collection stay low.
  */
-export type EntitySink = (e: DxfEntity, doc: DocumentSoFar) => void;
+export interface EntitySink {
+  entity(e: DxfEntity, doc: DocumentSoFar): void;
+  /** A LINE, ARC or CIRCLE; `e` is overwritten by the next entity, so only numbers and names may be kept. */
+  simple(e: SimpleEntity, doc: DocumentSoFar): void;
+}
 
 export interface DxfDocument {
   /** $INSUNITS value and the span of its header variable, when present. */
@@ -159,7 +165,7 @@ class GroupBuffer {
  */
 function withBase<const T extends object>(b: EntityBase, extra: T): EntityBase & T {
   const o: EntityBase = {
-    type: b.type, span: b.span, line: b.line, layer: b.layer, handle: b.handle, paperSpace: b.paperSpace,
+    type: b.type, span: b.span, line: b.line, layer: b.layer, handleSpan: b.handleSpan, paperSpace: b.paperSpace,
     nx: b.nx, ny: b.ny, nz: b.nz, hash: b.hash,
   };
   return Object.assign(o, extra);
@@ -200,12 +206,55 @@ function hashRange(h: number, text: string, start: number, end: number): number 
   return h >>> 0;
 }
 
-interface Started {
-  type: string;
-  start: number;
-  line: number;
-  /** Scanner problems before the entity began: more at its end means it is malformed. */
-  problemsBefore: number;
+/** Entity types read into numbers (`SimpleEntity`) rather than into a group buffer. */
+export type SimpleKind = 'line' | 'arc' | 'circle';
+
+/**
+ * The entity being read, in numbers and names: the base fields of every entity, gathered group by
+ * group, and for a LINE, ARC or CIRCLE its values too. One object serves every entity in turn: the
+ * sink's fast path reads it without a record per entity; `toEntity` makes the record when one is kept.
+ */
+export class SimpleEntity {
+  kind: SimpleKind = 'line';
+  type = '';
+  /** The entity's span. */
+  start = 0;
+  end = 0;
+  /** 0-based line of the entity's `0` group. */
+  line = 0;
+  layer = '0';
+  /** Where the handle is written, −1 for none: the handle is the trimmed text of [handleStart, handleEnd). */
+  handleStart = -1;
+  handleEnd = -1;
+  paperSpace = false;
+  nx = 0;
+  ny = 0;
+  nz = 1;
+  hash = 0;
+  /** LINE: x0, y0, z0, x1, y1, z1; ARC and CIRCLE: cx, cy, cz, r, start and end angle (degrees). */
+  readonly values = new Float64Array(6);
+
+  getSpan(): SourceSpan {
+    return { start: this.start, end: this.end };
+  }
+
+  /** The entity's record, as `parseDxfDocument` lists it (a LINE, ARC or CIRCLE). */
+  toEntity(): DxfEntity {
+    const v = this.values;
+    const base: EntityBase = {
+      type: this.type, span: this.getSpan(), line: this.line, layer: this.layer,
+      handleSpan: this.handleStart >= 0 ? { start: this.handleStart, end: this.handleEnd } : undefined,
+      paperSpace: this.paperSpace, nx: this.nx, ny: this.ny, nz: this.nz, hash: this.hash,
+    };
+    if (this.kind === 'line') return withBase(base, { kind: 'line', x0: v[0], y0: v[1], z0: v[2], x1: v[3], y1: v[4], z1: v[5] });
+    if (this.kind === 'circle') return withBase(base, { kind: 'circle', cx: v[0], cy: v[1], cz: v[2], r: v[3] });
+    return withBase(base, { kind: 'arc', cx: v[0], cy: v[1], cz: v[2], r: v[3], startDeg: v[4], endDeg: v[5] });
+  }
+}
+
+/** `v`, or `fallback` when it is NaN (a value that was not a number, already reported). */
+function orElse(v: number, fallback: number): number {
+  return Number.isNaN(v) ? fallback : v;
 }
 
 class DocumentBuilder {
@@ -223,6 +272,14 @@ class DocumentBuilder {
   private target: DxfEntity[] | null = null;
   private block: { name: string; baseX: number; baseY: number; start: number; entities: DxfEntity[] } | null = null;
   private polyline: { header: DxfEntity & { kind: 'other' }; flags: number; flagsSpan?: SourceSpan; insertFlagsAt: number; elevation: number; vertices: PolyVertex[]; hash: number } | null = null;
+  /** The entity being read, if any; its kind's values go to `current.values` (simple) or to `buf`. */
+  private readonly current: SimpleEntity = new SimpleEntity();
+  private inEntity = false;
+  private simple = false;
+  /** The running hash of the entity's groups (finished into `current.hash`). */
+  private hash = 0;
+  /** Scanner problems before the entity began: more at its end means it is malformed. */
+  private problemsBefore = 0;
 
   constructor(text: string, private readonly sink?: EntitySink) {
     this.text = text;
@@ -231,7 +288,7 @@ class DocumentBuilder {
 
   /** Adds an entity to the current target: the sink when streaming the ENTITIES section. */
   private emit(e: DxfEntity): void {
-    if (this.sink && this.target === this.entities) this.sink(e, this);
+    if (this.sink && this.target === this.entities) this.sink.entity(e, this);
     else this.target?.push(e);
   }
 
@@ -242,7 +299,6 @@ class DocumentBuilder {
   run(): void {
     const sc = this.sc;
     let section: string | null = null;
-    let current: Started | null = null;
     let headerVar: { name: string; start: number } | null = null;
     let layer: { start: number; name: string; flags: number; colour: number } | null = null;
     const finishLayer = (end: number) => {
@@ -252,8 +308,7 @@ class DocumentBuilder {
     let expectSectionName = false;
     while (sc.next()) {
       if (sc.code === 0) {
-        if (current) this.finishEntity(current, sc.codeStart);
-        current = null;
+        if (this.inEntity) this.finishEntity(sc.codeStart);
         finishLayer(sc.codeStart);
         const name = sc.name;
         if (name === 'SECTION') {
@@ -271,8 +326,7 @@ class DocumentBuilder {
         }
         if (name === 'EOF') break;
         if (section === 'ENTITIES' || section === 'BLOCKS') {
-          current = { type: name, start: sc.codeStart, line: sc.codeLine, problemsBefore: sc.problems.length };
-          this.buf.reset();
+          this.startEntity(name);
         } else if (section === 'TABLES' && name === 'LAYER') {
           layer = { start: sc.codeStart, name: '', flags: 0, colour: 7 };
         }
@@ -291,8 +345,8 @@ class DocumentBuilder {
           continue;
         }
       }
-      if (current) {
-        this.buf.push(sc);
+      if (this.inEntity) {
+        this.addGroup();
       } else if (layer) {
         if (sc.code === 2) layer.name = sc.name;
         else if (sc.code === 70 && Number.isFinite(sc.number)) layer.flags = sc.number;
@@ -305,9 +359,82 @@ class DocumentBuilder {
       }
     }
     const end = this.text.length;
-    if (current) this.finishEntity(current, end);
+    if (this.inEntity) this.finishEntity(end);
     finishLayer(end);
     if (this.polyline) this.flushPolyline(end, true);
+  }
+
+  /** Begins an entity of `type` at the scanner's `0` group. */
+  private startEntity(type: string): void {
+    const e = this.current;
+    e.type = type;
+    e.start = this.sc.codeStart;
+    e.line = this.sc.codeLine;
+    e.layer = '0';
+    e.handleStart = -1;
+    e.handleEnd = -1;
+    e.paperSpace = false;
+    e.nx = 0;
+    e.ny = 0;
+    e.nz = 1;
+    this.inEntity = true;
+    this.problemsBefore = this.sc.problems.length;
+    this.hash = hashRange(0x811c9dc5, type, 0, type.length);
+    this.simple = type === 'LINE' || type === 'ARC' || type === 'CIRCLE';
+    if (this.simple) {
+      e.kind = type === 'LINE' ? 'line' : type === 'ARC' ? 'arc' : 'circle';
+      // Defaults of absent groups: 0 for coordinates and radius, an ARC from 0° to 360°.
+      e.values.fill(0);
+      if (e.kind !== 'line') e.values[5] = 360;
+    } else {
+      this.buf.reset();
+    }
+  }
+
+  /** Takes the scanner's group into the entity being read. */
+  private addGroup(): void {
+    const sc = this.sc;
+    const e = this.current;
+    const c = sc.code;
+    const v = sc.number;
+    if (c === 8) e.layer = this.getLayerName();
+    else if (c === 5) {
+      e.handleStart = sc.valueStart;
+      e.handleEnd = sc.valueEnd;
+    } else if (c === 67) e.paperSpace = v === 1;
+    else if (c === 210) e.nx = orElse(v, 0);
+    else if (c === 220) e.ny = orElse(v, 0);
+    else if (c === 230) e.nz = orElse(v, 1);
+    if (!isIdentityCode(c)) {
+      const h = Math.imul(this.hash ^ c, 0x01000193) >>> 0;
+      // Numbers hash by value (equal text gives equal values); the exact text is compared on a hit.
+      this.hash = Number.isNaN(v) ? hashRange(h, this.text, sc.valueStart, sc.valueEnd) : hashNumber(h, v);
+    }
+    if (!this.simple) {
+      this.buf.push(sc);
+      return;
+    }
+    // A value that is not a number: NaN for a coordinate, radius or angle (reported), 0 for a z.
+    const values = e.values;
+    if (e.kind === 'line') {
+      switch (c) {
+        case 10: values[0] = v; break;
+        case 20: values[1] = v; break;
+        case 30: values[2] = orElse(v, 0); break;
+        case 11: values[3] = v; break;
+        case 21: values[4] = v; break;
+        case 31: values[5] = orElse(v, 0); break;
+      }
+    } else {
+      switch (c) {
+        case 10: values[0] = v; break;
+        case 20: values[1] = v; break;
+        case 30: values[2] = orElse(v, 0); break;
+        case 40: values[3] = v; break;
+        case 50: values[4] = v; break;
+        case 51: values[5] = v; break;
+      }
+    }
   }
 
   private num(i: number, fallback: number): number {
@@ -318,10 +445,11 @@ class DocumentBuilder {
   /** The last layer name read: entities mostly come in runs on one layer, so its string is reused. */
   private lastLayer = '0';
 
-  private getLayerName(i: number): string {
+  /** The scanner's value as a layer name. */
+  private getLayerName(): string {
     const text = this.text;
-    let vs = this.buf.vs[i];
-    const ve = this.buf.ve[i];
+    let vs = this.sc.valueStart;
+    const ve = this.sc.valueEnd;
     while (vs < ve && (text.charCodeAt(vs) === 32 || text.charCodeAt(vs) === 9)) vs++;
     const last = this.lastLayer;
     if (ve - vs !== last.length || !text.startsWith(last, vs)) this.lastLayer = text.slice(vs, ve);
@@ -332,35 +460,28 @@ class DocumentBuilder {
     return this.text.slice(this.buf.vs[i], this.buf.ve[i]).trim();
   }
 
-  private finishEntity(started: Started, end: number): void {
-    const { type, start, line } = started;
-    const span = { start, end };
+  private finishEntity(end: number): void {
+    this.inEntity = false;
+    const e = this.current;
+    const { type, start } = e;
     // An entity with a malformed group (already reported at its line) is left out: its values are unreliable.
-    if (this.sc.problems.length > started.problemsBefore && type !== 'SEQEND' && type !== 'ENDBLK') return;
-    const b = this.buf;
-    const text = this.text;
-    let layer = '0';
-    let handle: string | undefined;
-    let paperSpace = false;
-    let nx = 0, ny = 0, nz = 1;
-    let hash = hashRange(0x811c9dc5, type, 0, type.length);
-    for (let i = 0; i < b.length; i++) {
-      const c = b.codes[i];
-      if (c === 8) layer = this.getLayerName(i);
-      else if (c === 5) handle = this.str(i);
-      else if (c === 67) paperSpace = b.nums[i] === 1;
-      else if (c === 210) nx = this.num(i, 0);
-      else if (c === 220) ny = this.num(i, 0);
-      else if (c === 230) nz = this.num(i, 1);
-      if (!isIdentityCode(c)) {
-        hash = Math.imul(hash ^ c, 0x01000193) >>> 0;
-        // Numbers hash by value (equal text gives equal values); the exact text is compared on a hit.
-        const v = b.nums[i];
-        hash = Number.isNaN(v) ? hashRange(hash, text, b.vs[i], b.ve[i]) : hashNumber(hash, v);
-      }
+    if (this.sc.problems.length > this.problemsBefore && type !== 'SEQEND' && type !== 'ENDBLK') return;
+    e.end = end;
+    const hash = mixHash(this.hash);
+    e.hash = hash;
+    if (this.simple) {
+      if (this.polyline) this.flushPolyline(start, true);
+      if (!this.target) return;
+      if (this.sink && this.target === this.entities) this.sink.simple(e, this);
+      else this.target.push(e.toEntity());
+      return;
     }
-    hash = mixHash(hash);
-    const base = { type, span, line, layer, handle, paperSpace, nx, ny, nz, hash };
+    const b = this.buf;
+    const span = { start, end };
+    const base: EntityBase = {
+      type, span, line: e.line, layer: e.layer, handleSpan: e.handleStart >= 0 ? { start: e.handleStart, end: e.handleEnd } : undefined,
+      paperSpace: e.paperSpace, nx: e.nx, ny: e.ny, nz: e.nz, hash,
+    };
 
     // Block definitions and the POLYLINE … VERTEX … SEQEND sequence.
     if (type === 'BLOCK') {
@@ -429,43 +550,6 @@ class DocumentBuilder {
     const b = this.buf;
     const n = b.length;
     switch (type) {
-      case 'LINE': {
-        let x0 = 0, y0 = 0, z0 = 0, x1 = 0, y1 = 0, z1 = 0;
-        for (let i = 0; i < n; i++) {
-          switch (b.codes[i]) {
-            case 10: x0 = this.num(i, Number.NaN); break;
-            case 20: y0 = this.num(i, Number.NaN); break;
-            case 30: z0 = this.num(i, 0); break;
-            case 11: x1 = this.num(i, Number.NaN); break;
-            case 21: y1 = this.num(i, Number.NaN); break;
-            case 31: z1 = this.num(i, 0); break;
-          }
-        }
-        // Written out (no withBase) for the most common entity: one object of a fixed shape.
-        return {
-          type: base.type, span: base.span, line: base.line, layer: base.layer, handle: base.handle, paperSpace: base.paperSpace,
-          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'line', x0, y0, z0, x1, y1, z1,
-        };
-      }
-      case 'CIRCLE':
-      case 'ARC': {
-        let cx = 0, cy = 0, cz = 0, r = 0, a0 = 0, a1 = 360;
-        for (let i = 0; i < n; i++) {
-          switch (b.codes[i]) {
-            case 10: cx = this.num(i, Number.NaN); break;
-            case 20: cy = this.num(i, Number.NaN); break;
-            case 30: cz = this.num(i, 0); break;
-            case 40: r = this.num(i, Number.NaN); break;
-            case 50: a0 = this.num(i, Number.NaN); break;
-            case 51: a1 = this.num(i, Number.NaN); break;
-          }
-        }
-        if (type === 'CIRCLE') return withBase(base, { kind: 'circle', cx, cy, cz, r });
-        return {
-          type: base.type, span: base.span, line: base.line, layer: base.layer, handle: base.handle, paperSpace: base.paperSpace,
-          nx: base.nx, ny: base.ny, nz: base.nz, hash: base.hash, kind: 'arc', cx, cy, cz, r, startDeg: a0, endDeg: a1,
-        };
-      }
       case 'ELLIPSE': {
         let cx = 0, cy = 0, cz = 0, mx = 0, my = 0, mz = 0, ratio = 1, t0 = 0, t1 = 2 * Math.PI;
         for (let i = 0; i < n; i++) {

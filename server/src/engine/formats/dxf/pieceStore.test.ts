@@ -3,7 +3,10 @@ import type { Arc, Segment } from '../../types';
 import { PieceStore, type PieceFacts } from './pieceStore';
 
 const span = { start: 0, end: 10 };
-const facts: PieceFacts = { closed: false, order: 0, span, element: 'LWPOLYLINE', layer: '0', startSpan: span, endSpan: span, unflaggedPolyline: false };
+const facts: PieceFacts = {
+  closed: false, order: 0, spanStart: 0, spanEnd: 10, element: 'LWPOLYLINE', handleStart: -1, handleEnd: -1, layer: '0',
+  startSpanStart: 0, startSpanEnd: 10, endSpanStart: 0, endSpanEnd: 10, unflaggedPolyline: false,
+};
 const at = (x: number, y: number) => ({ x, y });
 const arcPoint = (a: Arc, t: number) => at(a.cx + a.ux * Math.cos(t) + a.vx * Math.sin(t), a.cy + a.uy * Math.cos(t) + a.vy * Math.sin(t));
 
@@ -73,20 +76,23 @@ describe('PieceStore', () => {
 
   it('keeps piece facts: spans, point groups, names, handles and flags (common practice, no source)', () => {
     const store = new PieceStore();
+    // Handles are read from the text: piece i's handle, when it has one, is " Hi" padded to 8 characters at 12i + 4.
+    const text = Array.from({ length: 3000 }, (_, i) => `    ${` H${i}`.padEnd(8)}`).join('');
     for (let i = 0; i < 3000; i++) {
       store.addSegment(null, segments[i % 4], i, i + 1);
       store.addPiece({
         ...facts, order: i, closed: i % 3 === 0, unflaggedPolyline: i % 5 === 0, layer: `L${i % 7}`, element: i % 2 ? 'LINE' : 'ARC',
-        handle: i % 11 === 0 ? `H${i}` : undefined, startEdit: i % 2 ? 'first10' : undefined, endEdit: i % 2 ? 'first11' : 'last10',
-        span: { start: i, end: i + 9 }, startSpan: { start: i + 1, end: i + 2 }, endSpan: { start: i + 3, end: i + 4 },
+        handleStart: i % 11 === 0 ? 12 * i + 4 : -1, handleEnd: i % 11 === 0 ? 12 * i + 12 : -1,
+        startEdit: i % 2 ? 'first10' : undefined, endEdit: i % 2 ? 'first11' : 'last10',
+        spanStart: i, spanEnd: i + 9, startSpanStart: i + 1, startSpanEnd: i + 2, endSpanStart: i + 3, endSpanEnd: i + 4,
       });
     }
     expect(store.pieceCount).toBe(3000);
     const i = 2999;
-    expect([store.getOrder(i), store.isClosed(i), store.isUnflaggedPolyline(i), store.getLayer(i), store.getElement(i), store.getHandle(i)])
+    expect([store.getOrder(i), store.isClosed(i), store.isUnflaggedPolyline(i), store.getLayer(i), store.getElement(i), store.getHandle(i, text)])
       .toEqual([2999, false, false, 'L3', 'LINE', undefined]);
     expect([store.getSpan(i, 0), store.getSpan(i, 1), store.getSpan(i, 2)]).toEqual([{ start: 2999, end: 3008 }, { start: 3000, end: 3001 }, { start: 3002, end: 3003 }]);
-    expect([store.getStartEdit(i), store.getEndEdit(i), store.getEndEdit(2998), store.getHandle(2992)]).toEqual(['first10', 'first11', 'last10', 'H2992']);
+    expect([store.getStartEdit(i), store.getEndEdit(i), store.getEndEdit(2998), store.getHandle(2992, text)]).toEqual(['first10', 'first11', 'last10', 'H2992']);
     expect(store.getLayerId(7)).toBe(store.getLayerId(0));
     const ends = new Float64Array(4);
     store.getEndPoint(2, false, ends, 0);

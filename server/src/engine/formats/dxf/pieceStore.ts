@@ -20,19 +20,25 @@ export interface PolylineFixInfo {
   readonly lastVertexSpan: SourceSpan;
 }
 
-/** The facts of one piece that are not geometry, as given to `addPiece`. */
+/** The facts of one piece that are not geometry, as given to `addPiece` (spans as numbers: no object per piece). */
 export interface PieceFacts {
   /** Closed by the file (circle, full ellipse, closed polyline or spline). */
   readonly closed: boolean;
   /** Position of the top-level entity in the ENTITIES section (contour order). */
   readonly order: number;
-  /** The top-level entity (or INSERT) the piece comes from. */
-  readonly span: SourceSpan;
+  /** The span of the top-level entity (or INSERT) the piece comes from. */
+  readonly spanStart: number;
+  readonly spanEnd: number;
   readonly element: string;
-  readonly handle?: string;
+  /** Where the top-level entity's handle is written (−1, −1 for none): the handle is that text, trimmed. */
+  readonly handleStart: number;
+  readonly handleEnd: number;
   readonly layer: string;
-  readonly startSpan: SourceSpan;
-  readonly endSpan: SourceSpan;
+  /** The spans of the text that holds the piece's start and end points. */
+  readonly startSpanStart: number;
+  readonly startSpanEnd: number;
+  readonly endSpanStart: number;
+  readonly endSpanEnd: number;
   /** Which groups in `startSpan` / `endSpan` hold the start / end point, when a fix may move it. */
   readonly startEdit?: PointGroups;
   readonly endEdit?: PointGroups;
@@ -69,9 +75,9 @@ function grownFloat64(a: Float64Array, size: number): Float64Array {
   return b;
 }
 
-/** Fields of a piece record: one past its last segment, order, flag bits, name ids, spans (start, end) ×3. */
-const SEGMENT_END = 0, ORDER = 1, FLAGS = 2, ELEMENT = 3, LAYER = 4, SPANS = 5;
-const PIECE_WIDTH = 12;
+/** Fields of a piece record: one past its last segment, order, flag bits, name ids, spans (start, end) ×3, handle span. */
+const SEGMENT_END = 0, ORDER = 1, FLAGS = 2, ELEMENT = 3, LAYER = 4, SPANS = 5, HANDLE = 11;
+const PIECE_WIDTH = 13;
 /** Fields of a segment record: kind, first coordinate, span start and end. */
 const KIND = 0, COORDINATE_AT = 1, SPAN_START = 2, SPAN_END = 3;
 const SEGMENT_WIDTH = 4;
@@ -89,7 +95,6 @@ export class PieceStore {
   private segments: Int32Array = new Int32Array(SEGMENT_WIDTH * 1024);
   /** Coordinates of each segment, in `Segment` field order after `kind`. */
   private coordinates: Float64Array = new Float64Array(8192);
-  private readonly handles = new Map<number, string>();
   private readonly polylines = new Map<number, PolylineFixInfo>();
   /** Entity types and layer names by id, each once. */
   private readonly names: string[] = [];
@@ -192,10 +197,10 @@ export class PieceStore {
       | (getPointGroupsCode(facts.startEdit) << START_EDIT_SHIFT) | (getPointGroupsCode(facts.endEdit) << END_EDIT_SHIFT);
     p[r + ELEMENT] = this.getNameId(facts.element);
     p[r + LAYER] = this.getNameId(facts.layer);
-    p[r + SPANS] = facts.span.start; p[r + SPANS + 1] = facts.span.end;
-    p[r + SPANS + 2] = facts.startSpan.start; p[r + SPANS + 3] = facts.startSpan.end;
-    p[r + SPANS + 4] = facts.endSpan.start; p[r + SPANS + 5] = facts.endSpan.end;
-    if (facts.handle !== undefined) this.handles.set(i, facts.handle);
+    p[r + SPANS] = facts.spanStart; p[r + SPANS + 1] = facts.spanEnd;
+    p[r + SPANS + 2] = facts.startSpanStart; p[r + SPANS + 3] = facts.startSpanEnd;
+    p[r + SPANS + 4] = facts.endSpanStart; p[r + SPANS + 5] = facts.endSpanEnd;
+    p[r + HANDLE] = facts.handleStart; p[r + HANDLE + 1] = facts.handleEnd;
     if (facts.polyline) this.polylines.set(i, facts.polyline);
   }
 
@@ -236,8 +241,10 @@ export class PieceStore {
     return this.names[this.pieces[PIECE_WIDTH * i + ELEMENT]];
   }
 
-  getHandle(i: number): string | undefined {
-    return this.handles.get(i);
+  /** The handle of the piece's top-level entity, read from the `text` the pieces come from. */
+  getHandle(i: number, text: string): string | undefined {
+    const r = PIECE_WIDTH * i + HANDLE;
+    return this.pieces[r] < 0 ? undefined : text.slice(this.pieces[r], this.pieces[r + 1]).trim();
   }
 
   /** The piece's span (which = 0), start span (1) or end span (2), as a new object. */

@@ -6,7 +6,7 @@
  */
 import { SPLINE_FIT_TOLERANCE_MM } from '../../geometry/tolerances';
 import type { Arc, Segment, SourceSpan } from '../../types';
-import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PolyVertex } from './entities';
+import type { BlockDef, DxfEntity, LayerInfo, LwVertex, PointGroups, PolyVertex, SimpleEntity } from './entities';
 import { PieceStore, type PieceFacts, type PolylineFixInfo } from './pieceStore';
 import { getSplineSegments } from './spline';
 import { compose, getCosSinDeg, getMaxStretch, getOcsMap, IDENTITY, rotationDeg, scaling, translation, type Affine } from './transform';
@@ -36,9 +36,39 @@ function areFinite(a: number, b: number, c: number, d: number): boolean {
   return Number.isFinite(a) && Number.isFinite(b) && Number.isFinite(c) && Number.isFinite(d);
 }
 
+/** What a piece may tell beyond its entity: start and end spans (default: the entity's), fix facts. */
+interface ExtraFacts {
+  readonly startSpan?: SourceSpan;
+  readonly endSpan?: SourceSpan;
+  readonly startEdit?: PointGroups;
+  readonly endEdit?: PointGroups;
+  readonly polyline?: PolylineFixInfo;
+  readonly unflaggedPolyline?: boolean;
+}
+
 /** The point groups of a LINE's ends; no facts beyond the defaults. */
-const LINE_POINTS: Partial<PieceFacts> = { startEdit: 'first10', endEdit: 'first11' };
-const NO_FACTS: Partial<PieceFacts> = {};
+const LINE_POINTS: ExtraFacts = { startEdit: 'first10', endEdit: 'first11' };
+const NO_FACTS: ExtraFacts = {};
+
+/** The facts of the piece being ended: one object, refilled for every piece. */
+class Facts implements PieceFacts {
+  closed = false;
+  order = 0;
+  spanStart = 0;
+  spanEnd = 0;
+  element = '';
+  handleStart = -1;
+  handleEnd = -1;
+  layer = '';
+  startSpanStart = 0;
+  startSpanEnd = 0;
+  endSpanStart = 0;
+  endSpanEnd = 0;
+  startEdit: PointGroups | undefined = undefined;
+  endEdit: PointGroups | undefined = undefined;
+  polyline: PolylineFixInfo | undefined = undefined;
+  unflaggedPolyline = false;
+}
 
 /** Nesting limit of inserts (a block inserting itself is reported before this is reached). */
 const MAX_INSERT_DEPTH = 32;
@@ -73,7 +103,7 @@ interface Frame {
   /** Entity coordinates (after OCS) → WCS mm. */
   readonly m: Affine;
   /** The top-level span (entity or INSERT) and order. */
-  readonly top: { readonly span: SourceSpan; readonly order: number; readonly type: string; readonly handle?: string };
+  readonly top: { readonly span: SourceSpan; readonly order: number; readonly type: string; readonly handleSpan?: SourceSpan };
   /** True for top-level entities whose file coordinates map to mm by the unit factor only. */
   readonly editable: boolean;
   readonly depth: number;
@@ -87,6 +117,9 @@ export class PieceBuilder {
   private instanceCapReported = false;
   /** File units → mm, the map of every top-level entity. */
   private readonly topMatrix: Affine;
+  /** The map a top-level piece's segments go through (`getMap` of the top-level frame). */
+  private readonly topMap: Affine | null;
+  private readonly facts = new Facts();
   /** Ignored layer names, upper case (DXF layer names are case-insensitive). */
   private readonly ignored: ReadonlySet<string>;
   /** Per layer name as written: visible, hidden (frozen or off) or ignored. */
@@ -99,6 +132,7 @@ export class PieceBuilder {
     ignoredLayers: readonly string[] = [],
   ) {
     this.topMatrix = scaling(mmPerUnit, mmPerUnit);
+    this.topMap = mmPerUnit === 1 ? null : this.topMatrix;
     this.ignored = new Set(ignoredLayers.map((name) => name.trim().toUpperCase()));
   }
 
@@ -111,20 +145,78 @@ export class PieceBuilder {
     if (this.skipLayer(e.layer, e.span)) return;
     this.addEntity(e, e.layer, {
       m: this.topMatrix,
-      top: { span: e.span, order, type: e.type, handle: e.handle },
+      top: { span: e.span, order, type: e.type, handleSpan: e.handleSpan },
       editable: true,
       depth: 0,
       blocks: NO_BLOCKS,
     });
   }
 
-  /** True (and noted) when entities on `layer` are skipped; `span` is the top-level entity or INSERT. */
-  private skipLayer(layer: string, span: SourceSpan): boolean {
+  /**
+   * Builds the piece of a top-level LINE, ARC or CIRCLE from its numbers when it is drawn as read (model
+   * space, a visible layer, finite values, in the drawing plane); otherwise from its record, which
+   * reports what is wrong or skipped. The pieces are those `addTopLevel` makes of the record.
+   */
+  addSimple(e: SimpleEntity, order: number): void {
+    if (e.paperSpace || this.getLayerState(e.layer) !== 'visible' || !this.addSimplePiece(e, order)) this.addTopLevel(e.toEntity(), order);
+  }
+
+  /** The piece of a LINE, ARC or CIRCLE drawn as read; false, adding nothing, for any other. */
+  private addSimplePiece(e: SimpleEntity, order: number): boolean {
+    const v = e.values;
+    const m = this.topMap;
+    let closed = false;
+    let extra = NO_FACTS;
+    if (e.kind === 'line') {
+      if (!areFinite(v[0], v[1], v[3], v[4]) || v[2] !== v[5]) return false;
+      this.store.addLine(m, v[0], v[1], v[3], v[4], e.start, e.end);
+      extra = LINE_POINTS;
+    } else {
+      const cx = v[0], cy = v[1], r = v[3];
+      if (!areFinite(cx, cy, r, 0) || !(r > 0) || getOcsMap(e.nx, e.ny, e.nz) !== IDENTITY) return false;
+      if (e.kind === 'circle') {
+        this.addCircle(m, cx, cy, r, e.start, e.end);
+        closed = true;
+      } else {
+        if (!areFinite(v[4], v[5], 0, 0)) return false;
+        this.addArc(m, cx, cy, r, v[4], v[5], e.start, e.end);
+      }
+    }
+    const facts = this.facts;
+    facts.spanStart = facts.startSpanStart = facts.endSpanStart = e.start;
+    facts.spanEnd = facts.startSpanEnd = facts.endSpanEnd = e.end;
+    this.writePiece(order, e.type, e.handleStart, e.handleEnd, e.layer, closed, extra.startEdit, extra.endEdit, undefined, false);
+    return true;
+  }
+
+  /** A CIRCLE: the full arc from angle 0 (as `getFullArc` with u = (r, 0), v = (0, r)). */
+  private addCircle(m: Affine | null, cx: number, cy: number, r: number, spanStart: number, spanEnd: number): void {
+    this.store.addArc(m, cx + r, cy + 0, cx + r, cy + 0, cx, cy, r, 0, 0, r, 0, 2 * Math.PI, spanStart, spanEnd);
+  }
+
+  /** An ARC: counter-clockwise about the extrusion axis from start to end; sweep in (0°, 360°] (§6.4). */
+  private addArc(m: Affine | null, cx: number, cy: number, r: number, startDeg: number, endDeg: number, spanStart: number, spanEnd: number): void {
+    let sweepDeg = (endDeg - startDeg) % 360;
+    if (sweepDeg <= 0) sweepDeg += 360;
+    const [c0, s0] = getCosSinDeg(startDeg);
+    const [c1, s1] = getCosSinDeg(endDeg);
+    this.store.addArc(m, cx + r * c0, cy + r * s0, cx + r * c1, cy + r * s1, cx, cy, r, 0, 0, r,
+      (startDeg * Math.PI) / 180, (sweepDeg * Math.PI) / 180, spanStart, spanEnd);
+  }
+
+  /** Visible, hidden (frozen or off) or ignored, once per layer name. */
+  private getLayerState(layer: string): 'visible' | 'hidden' | 'ignored' {
     let state = this.layerState.get(layer);
     if (state === undefined) {
       state = this.ignored.has(layer.toUpperCase()) ? 'ignored' : isLayerHidden(this.layers.get(layer)) ? 'hidden' : 'visible';
       this.layerState.set(layer, state);
     }
+    return state;
+  }
+
+  /** True (and noted) when entities on `layer` are skipped; `span` is the top-level entity or INSERT. */
+  private skipLayer(layer: string, span: SourceSpan): boolean {
+    const state = this.getLayerState(layer);
     if (state === 'visible') return false;
     if (state === 'hidden') {
       this.notes.hiddenLayers.set(layer, (this.notes.hiddenLayers.get(layer) ?? 0) + 1);
@@ -168,7 +260,7 @@ export class PieceBuilder {
     return f.depth === 0 && m.a === 1 && m.b === 0 && m.c === 0 && m.d === 1 && m.e === 0 && m.f === 0 ? null : m;
   }
 
-  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: Partial<PieceFacts> = {}): void {
+  private push(f: Frame, e: DxfEntity, layer: string, segments: Segment[], closed: boolean, extra: ExtraFacts = NO_FACTS): void {
     const m = this.getMap(f);
     for (const s of segments) {
       const span = f.depth > 0 ? f.top.span : s.span;
@@ -178,22 +270,42 @@ export class PieceBuilder {
   }
 
   /** Ends the piece whose segments went to the store. */
-  private finishPiece(f: Frame, e: DxfEntity, layer: string, closed: boolean, extra: Partial<PieceFacts>): void {
+  private finishPiece(f: Frame, e: DxfEntity, layer: string, closed: boolean, extra: ExtraFacts): void {
     const inBlock = f.depth > 0;
-    this.store.addPiece({
-      closed,
-      order: f.top.order,
-      span: f.top.span,
-      element: inBlock ? f.top.type : e.type,
-      handle: f.top.handle,
-      layer,
-      startSpan: inBlock ? f.top.span : (extra.startSpan ?? e.span),
-      endSpan: inBlock ? f.top.span : (extra.endSpan ?? e.span),
-      startEdit: f.editable ? extra.startEdit : undefined,
-      endEdit: f.editable ? extra.endEdit : undefined,
-      polyline: f.editable ? extra.polyline : undefined,
-      unflaggedPolyline: extra.unflaggedPolyline ?? false,
-    });
+    const top = f.top;
+    const startSpan = inBlock ? top.span : (extra.startSpan ?? e.span);
+    const endSpan = inBlock ? top.span : (extra.endSpan ?? e.span);
+    const facts = this.facts;
+    facts.spanStart = top.span.start;
+    facts.spanEnd = top.span.end;
+    facts.startSpanStart = startSpan.start;
+    facts.startSpanEnd = startSpan.end;
+    facts.endSpanStart = endSpan.start;
+    facts.endSpanEnd = endSpan.end;
+    this.writePiece(
+      top.order, inBlock ? top.type : e.type, top.handleSpan?.start ?? -1, top.handleSpan?.end ?? -1, layer, closed,
+      f.editable ? extra.startEdit : undefined, f.editable ? extra.endEdit : undefined, f.editable ? extra.polyline : undefined,
+      extra.unflaggedPolyline ?? false,
+    );
+  }
+
+  /** Ends a piece with the facts given and the spans already in `this.facts`. */
+  private writePiece(
+    order: number, element: string, handleStart: number, handleEnd: number, layer: string, closed: boolean,
+    startEdit: PointGroups | undefined, endEdit: PointGroups | undefined, polyline: PolylineFixInfo | undefined, unflaggedPolyline: boolean,
+  ): void {
+    const facts = this.facts;
+    facts.order = order;
+    facts.element = element;
+    facts.handleStart = handleStart;
+    facts.handleEnd = handleEnd;
+    facts.layer = layer;
+    facts.closed = closed;
+    facts.startEdit = startEdit;
+    facts.endEdit = endEdit;
+    facts.polyline = polyline;
+    facts.unflaggedPolyline = unflaggedPolyline;
+    this.store.addPiece(facts);
   }
 
   private addEntity(e: DxfEntity, layer: string, f: Frame): void {
@@ -214,16 +326,10 @@ export class PieceBuilder {
         if (!(e.r > 0)) return this.malformed(f, e, `${e.type} radius ${e.r} is not positive`);
         const g = this.getOcsFrame(f, e);
         if (!g) return;
-        if (e.kind === 'circle') return this.push(g, e, layer, [getFullArc(e.cx, e.cy, e.r, 0, 0, e.r, e.span)], true);
-        // Counter-clockwise about the extrusion axis from start to end; sweep in (0°, 360°] (§6.4).
-        let sweepDeg = (e.endDeg - e.startDeg) % 360;
-        if (sweepDeg <= 0) sweepDeg += 360;
-        const [c0, s0] = getCosSinDeg(e.startDeg);
-        const [c1, s1] = getCosSinDeg(e.endDeg);
         const span = g.depth > 0 ? g.top.span : e.span;
-        this.store.addArc(this.getMap(g), e.cx + e.r * c0, e.cy + e.r * s0, e.cx + e.r * c1, e.cy + e.r * s1, e.cx, e.cy, e.r, 0, 0, e.r,
-          (e.startDeg * Math.PI) / 180, (sweepDeg * Math.PI) / 180, span.start, span.end);
-        return this.finishPiece(g, e, layer, false, NO_FACTS);
+        if (e.kind === 'circle') this.addCircle(this.getMap(g), e.cx, e.cy, e.r, span.start, span.end);
+        else this.addArc(this.getMap(g), e.cx, e.cy, e.r, e.startDeg, e.endDeg, span.start, span.end);
+        return this.finishPiece(g, e, layer, e.kind === 'circle', NO_FACTS);
       }
       case 'ellipse': {
         if (![e.cx, e.cy, e.mx, e.my, e.ratio, e.t0, e.t1].every(Number.isFinite)) return this.malformed(f, e, 'ELLIPSE has a value that is not a number');

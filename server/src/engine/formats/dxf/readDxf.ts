@@ -2,7 +2,8 @@
  * The DXF reader: ASCII DXF text → contours in WCS millimetres (y up), units, and reader problems.
  *
  * Steps: binary sentinel test (§6.6) → group scan and entity records (groups.ts, entities.ts), each
- * top-level entity passed on as soon as it is read → units from $INSUNITS (units.ts) → exact duplicates
+ * top-level entity passed on as soon as it is read (a LINE, ARC or CIRCLE as numbers, no record) →
+ * units from $INSUNITS (units.ts) → exact duplicates
  * set aside → entities on hidden or ignored layers skipped, the rest to pieces through OCS and block
  * inserts (pieces.ts; flat records in pieceStore.ts) → loose open pieces chained end to end per layer
  * (model/chain.ts) → contours, whose `Segment` objects are made only now, with the close fixes that
@@ -12,7 +13,7 @@ import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
-import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type PointGroups, type PointRef } from './entities';
+import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
 import { PieceBuilder } from './pieces';
 import type { PieceStore, PolylineFixInfo } from './pieceStore';
@@ -46,10 +47,10 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
   // Entities stream from the scanner into pieces, so their records die young. A file whose HEADER,
   // TABLES or BLOCKS section follows its ENTITIES section is read again, collected, once all is known.
   let reader = new EntityReader(text, options);
-  const doc = parseDxfDocument(text, (e, known) => reader.take(e, known));
+  const doc = parseDxfDocument(text, reader);
   if (doc.lateSections) {
     reader = new EntityReader(text, options);
-    for (const e of parseDxfDocument(text).entities) reader.take(e, doc);
+    for (const e of parseDxfDocument(text).entities) reader.entity(e, doc);
   }
   const { builder, units } = reader.finish(doc);
   problems.push(...doc.problems, ...reader.problems);
@@ -62,7 +63,7 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
  * Turns top-level entities, one at a time, into pieces, setting exact duplicates aside. Of an entity
  * it keeps only its span, line and hash (for duplicates), not the record.
  */
-class EntityReader {
+class EntityReader implements EntitySink {
   /** Units and duplicate problems, in the order they arise. */
   readonly problems: RawFinding[] = [];
   private builder?: PieceBuilder;
@@ -85,39 +86,54 @@ class EntityReader {
     return this.builder;
   }
 
-  take(e: DxfEntity, known: DocumentSoFar): void {
+  entity(e: DxfEntity, known: DocumentSoFar): void {
     const builder = this.builder ?? this.start(known);
     const order = this.order++;
-    if (e.kind !== 'other' && !e.paperSpace) {
-      const slot = this.findSlot(e.hash | 0);
-      const last = this.table[slot + 1] - 1;
-      const first = last < 0 ? -1 : this.findDuplicate(last, e);
-      if (first >= 0) {
-        const k = this.kept;
-        this.problems.push({
-          checkId: 'duplicate-entity', messageId: 'duplicate', span: e.span,
-          data: { entity: e.type, line: k[4 * first + 2] + 1 },
-          related: [{ span: { start: k[4 * first], end: k[4 * first + 1] }, message: `The first ${e.type}` }],
-          fixes: [{ title: `Remove the duplicate ${e.type}`, edits: [{ span: e.span, newText: '' }] }],
-        });
-        return;
-      }
-      const i = this.keptCount++;
-      if (4 * i + 4 > this.kept.length) {
-        const grown = new Int32Array(2 * this.kept.length);
-        grown.set(this.kept);
-        this.kept = grown;
-      }
-      const k = this.kept;
-      k[4 * i] = e.span.start;
-      k[4 * i + 1] = e.span.end;
-      k[4 * i + 2] = e.line;
-      k[4 * i + 3] = last;
-      this.table[slot] = e.hash | 0;
-      this.table[slot + 1] = i + 1;
-      if (4 * this.keptCount > this.table.length) this.grow();
-    }
+    if (e.kind !== 'other' && !e.paperSpace && this.isDuplicate(e.type, e.hash, e.span.start, e.span.end, e.line)) return;
     builder.addTopLevel(e, order);
+  }
+
+  simple(e: SimpleEntity, known: DocumentSoFar): void {
+    const builder = this.builder ?? this.start(known);
+    const order = this.order++;
+    if (!e.paperSpace && this.isDuplicate(e.type, e.hash, e.start, e.end, e.line)) return;
+    builder.addSimple(e, order);
+  }
+
+  /**
+   * True (and reported) when the entity at [start, end) repeats a kept one exactly; otherwise it is
+   * kept. `line` is its 0-based line.
+   */
+  private isDuplicate(type: string, hash: number, start: number, end: number, line: number): boolean {
+    const slot = this.findSlot(hash | 0);
+    const last = this.table[slot + 1] - 1;
+    const first = last < 0 ? -1 : this.findDuplicate(last, start, end);
+    if (first >= 0) {
+      const k = this.kept;
+      const span = { start, end };
+      this.problems.push({
+        checkId: 'duplicate-entity', messageId: 'duplicate', span,
+        data: { entity: type, line: k[4 * first + 2] + 1 },
+        related: [{ span: { start: k[4 * first], end: k[4 * first + 1] }, message: `The first ${type}` }],
+        fixes: [{ title: `Remove the duplicate ${type}`, edits: [{ span, newText: '' }] }],
+      });
+      return true;
+    }
+    const i = this.keptCount++;
+    if (4 * i + 4 > this.kept.length) {
+      const grown = new Int32Array(2 * this.kept.length);
+      grown.set(this.kept);
+      this.kept = grown;
+    }
+    const k = this.kept;
+    k[4 * i] = start;
+    k[4 * i + 1] = end;
+    k[4 * i + 2] = line;
+    k[4 * i + 3] = last;
+    this.table[slot] = hash | 0;
+    this.table[slot + 1] = i + 1;
+    if (4 * this.keptCount > this.table.length) this.grow();
+    return false;
   }
 
   /** The slot (even index) of `hash`: where its last kept entity is, or the empty slot where it would go. */
@@ -141,11 +157,11 @@ class EntityReader {
     }
   }
 
-  /** The earliest kept entity with the same groups as `e`, walking the same-hash list from `i`; −1 for none. */
-  private findDuplicate(i: number, e: DxfEntity): number {
+  /** The earliest kept entity with the same groups as the text [start, end), walking the same-hash list from `i`; −1 for none. */
+  private findDuplicate(i: number, start: number, end: number): number {
     let found = -1;
     for (; i >= 0; i = this.kept[4 * i + 3]) {
-      if (haveSameGroups(this.text, { start: this.kept[4 * i], end: this.kept[4 * i + 1] }, e.span)) found = i;
+      if (haveSameGroups(this.text, { start: this.kept[4 * i], end: this.kept[4 * i + 1] }, { start, end })) found = i;
     }
     return found;
   }
@@ -360,7 +376,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       index, segments, closed,
       startX: segments[0].x0, startY: segments[0].y0,
       span, startSpan, endSpan, elementSpan: span,
-      element: store.getElement(p), id: store.getHandle(p), layer: store.getLayer(p),
+      element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
     };
     contours[index] = closeFix ? { ...c, closeFix } : c;
   }

@@ -24,7 +24,7 @@ export interface PolylineFixInfo {
 export interface PieceFacts {
   /** Closed by the file (circle, full ellipse, closed polyline or spline). */
   readonly closed: boolean;
-  /** Position of the top-level entity in the ENTITIES section (contour order). */
+  /** Position of the top-level entity in the ENTITIES section (contour order); never below the last piece's. */
   readonly order: number;
   /** The span of the top-level entity (or INSERT) the piece comes from. */
   readonly spanStart: number;
@@ -251,6 +251,12 @@ export class PieceStore {
   getSpan(i: number, which: 0 | 1 | 2): SourceSpan {
     const r = PIECE_WIDTH * i + SPANS + 2 * which;
     return { start: this.pieces[r], end: this.pieces[r + 1] };
+  }
+
+  /** The piece's span `which` (as in `getSpan`): `like` itself when it has the same values (one object for both). */
+  getSpanLike(i: number, which: 0 | 1 | 2, like: SourceSpan): SourceSpan {
+    const r = PIECE_WIDTH * i + SPANS + 2 * which;
+    return this.pieces[r] === like.start && this.pieces[r + 1] === like.end ? like : { start: this.pieces[r], end: this.pieces[r + 1] };
   }
 
   getStartEdit(i: number): PointGroups | undefined {

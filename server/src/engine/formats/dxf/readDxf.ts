@@ -274,27 +274,19 @@ function getGapMm(gap: Gap): number {
 
 /**
  * Contours from the pieces: closed pieces as they are, open ones chained; numbered in the order of
- * their first entity (a stable sort of the drafts, closed pieces then chains), their `Segment` objects
- * made once, in that order.
+ * their first entity (closed pieces before chains of the same order, each list in its own order),
+ * their `Segment` objects made once, in that order.
  */
 function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: string, fixMaxGapMm: number, problems: RawFinding[]): Contour[] {
   const n = store.pieceCount;
-  // Drafts: a closed piece (its index) or a chain (−1 − its index); their order and start/end spans.
-  const draftOf: number[] = [];
-  const draftOrder: number[] = [];
-  // Open pieces, with their orders beside them: the chains visit them in shuffled order.
-  let openCount = 0;
+  // Closed pieces and open ones, each in piece order.
+  let closedCount = 0, openCount = 0;
+  const closedPieces = new Int32Array(n);
   const open = new Int32Array(n);
-  const openOrder = new Int32Array(n);
   for (let i = 0; i < n; i++) {
     if (store.getSegmentCount(i) === 0) continue;
-    if (store.isClosed(i)) {
-      draftOf.push(i);
-      draftOrder.push(store.getOrder(i));
-    } else {
-      openOrder[openCount] = store.getOrder(i);
-      open[openCount++] = i;
-    }
+    if (store.isClosed(i)) closedPieces[closedCount++] = i;
+    else open[openCount++] = i;
   }
   const ends = new Float64Array(4 * openCount);
   const groups = new Int32Array(openCount);
@@ -318,47 +310,57 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
   const links = chained.links;
   /** The chain's closed flag after the single-polyline rule. */
   const chainClosed = new Uint8Array(chainCount);
+  /**
+   * The chain's order: that of its lowest piece, as orders never decrease from piece to piece. Chains
+   * come by their lowest piece, so their orders never decrease either.
+   */
+  const chainOrder = new Int32Array(chainCount);
   const fixes = new Map<number, Fix>();
   const gap: Gap = new Float64Array(4);
   for (let k = 0; k < chainCount; k++) {
     const from = chained.starts[k], to = chained.starts[k + 1];
-    const first = open[links[from] >> 1], last = open[links[to - 1] >> 1];
+    const firstK = links[from] >> 1, lastK = links[to - 1] >> 1;
     const firstReversed = (links[from] & 1) === 1, lastReversed = (links[to - 1] & 1) === 1;
-    let order = openOrder[links[from] >> 1];
-    for (let l = from + 1; l < to; l++) order = Math.min(order, openOrder[links[l] >> 1]);
-    draftOf.push(-1 - k);
-    draftOrder.push(order);
+    let lowest = firstK;
+    for (let l = from + 1; l < to; l++) lowest = Math.min(lowest, links[l] >> 1);
+    chainOrder[k] = store.getOrder(open[lowest]);
+    const first = open[firstK];
     const single = to - from === 1 && store.isUnflaggedPolyline(first);
     const closed = chained.closed[k] === 1 && !single;
     chainClosed[k] = closed ? 1 : 0;
     if (closed) continue;
-    store.getEndPoint(first, firstReversed, gap, 0);
-    store.getEndPoint(last, !lastReversed, gap, 2);
+    // The chain's start and end points: the ends by which it leaves its first and last pieces.
+    const s = 4 * firstK + (firstReversed ? 2 : 0), e = 4 * lastK + (lastReversed ? 0 : 2);
+    gap[0] = ends[s];
+    gap[1] = ends[s + 1];
+    gap[2] = ends[e];
+    gap[3] = ends[e + 1];
     if (!(getGapMm(gap) <= fixMaxGapMm)) continue;
     const firstEnd = { piece: getFixPiece(store, first), reversed: firstReversed };
     const closeFix = single
       ? getPolylineCloseFix(text, firstEnd.piece, gap, eol)
-      : getMoveEndFix(text, firstEnd, { piece: getFixPiece(store, last), reversed: lastReversed }, gap, units);
+      : getMoveEndFix(text, firstEnd, { piece: getFixPiece(store, open[lastK]), reversed: lastReversed }, gap, units);
     if (closeFix) fixes.set(k, closeFix);
   }
 
-  // Stable sort by order: equal orders keep the draft order.
-  const sorted = Array.from(draftOf.keys()).sort((a, b) => draftOrder[a] - draftOrder[b] || a - b);
-  const contours: Contour[] = new Array<Contour>(sorted.length);
-  for (let index = 0; index < sorted.length; index++) {
-    const d = draftOf[sorted[index]];
-    const segments: Segment[] = [];
+  // Closed pieces and chains merged by order, a closed piece first on a tie.
+  const contours: Contour[] = new Array<Contour>(closedCount + chainCount);
+  /** The contour's segments as they are made; each contour gets a copy of exactly its length. */
+  const segments: Segment[] = [];
+  let nextClosed = 0, nextChain = 0;
+  for (let index = 0; index < contours.length; index++) {
+    segments.length = 0;
     let p: number, closed: boolean, startSpan: SourceSpan, endSpan: SourceSpan, closeFix: Fix | undefined;
     let span: SourceSpan;
-    if (d >= 0) {
-      p = d;
+    if (nextClosed < closedCount && (nextChain === chainCount || store.getOrder(closedPieces[nextClosed]) <= chainOrder[nextChain])) {
+      p = closedPieces[nextClosed++];
       span = store.getSpan(p, 0);
       store.appendSegments(p, false, span, segments);
       closed = true;
-      startSpan = sameOrNew(span, store.getSpan(p, 1));
-      endSpan = sameOrNew(span, store.getSpan(p, 2));
+      startSpan = store.getSpanLike(p, 1, span);
+      endSpan = store.getSpanLike(p, 2, span);
     } else {
-      const k = -1 - d;
+      const k = nextChain++;
       const from = chained.starts[k], to = chained.starts[k + 1];
       p = open[links[from] >> 1];
       span = store.getSpan(p, 0);
@@ -367,25 +369,21 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
         store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments);
       }
       const last = open[links[to - 1] >> 1];
-      startSpan = sameOrNew(span, store.getSpan(p, (links[from] & 1) === 1 ? 2 : 1));
-      endSpan = sameOrNew(span, store.getSpan(last, (links[to - 1] & 1) === 1 ? 1 : 2));
+      startSpan = store.getSpanLike(p, (links[from] & 1) === 1 ? 2 : 1, span);
+      endSpan = store.getSpanLike(last, (links[to - 1] & 1) === 1 ? 1 : 2, span);
       closed = chainClosed[k] === 1;
       closeFix = fixes.get(k);
     }
+    const own = segments.slice();
     const c: Contour = {
-      index, segments, closed,
-      startX: segments[0].x0, startY: segments[0].y0,
+      index, segments: own, closed,
+      startX: own[0].x0, startY: own[0].y0,
       span, startSpan, endSpan, elementSpan: span,
       element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
     };
     contours[index] = closeFix ? { ...c, closeFix } : c;
   }
   return contours;
-}
-
-/** `span` itself when `other` has its values (one object for both), else `other`. */
-function sameOrNew(span: SourceSpan, other: SourceSpan): SourceSpan {
-  return other.start === span.start && other.end === span.end ? span : other;
 }
 
 /**

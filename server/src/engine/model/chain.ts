@@ -57,42 +57,50 @@ const KEY_NUMBER = new Float64Array(1);
 const KEY_WORDS = new Uint32Array(KEY_NUMBER.buffer);
 
 /**
- * Sorts records of `width` unsigned words by their first `keyWidth` words (most significant first)
- * with a stable least-significant-digit radix sort that moves whole records, so each pass reads in
- * order and writes one stream per digit value. Digits equal in every record are skipped: coordinates
- * that vary in few bits cost few passes. Returns the sorted records (`records` or a new array).
+ * Sorts records of `width` unsigned words by their first `keyWords.length` words (most significant
+ * first), which are also given apart as `keyWords` (word v of record i is keyWords[v][i]), with a
+ * stable least-significant-digit radix sort that moves whole records, so each pass reads in order and
+ * writes one stream per digit value. Digits equal in every record are skipped: coordinates that vary
+ * in few bits cost few passes. The digit counts do not depend on the records' order, so they are all
+ * taken from the compact key words first, and each pass only moves records. Returns the sorted records
+ * (`records` or a new array).
  */
-function sortRecords(records: Uint32Array, width: number, keyWidth: number): Uint32Array {
+function sortRecords(records: Uint32Array, width: number, keyWords: readonly Uint32Array[]): Uint32Array {
   const m = records.length / width;
-  let from: Uint32Array = records;
-  let to: Uint32Array = new Uint32Array(records.length);
-  const count = new Int32Array(1 << DIGIT_BITS);
-  for (let w = keyWidth - 1; w >= 0; w--) {
+  // The passes, least significant digit first: the word, the shift and where each digit value goes.
+  const passes: { word: number; shift: number; next: Int32Array }[] = [];
+  for (let w = keyWords.length - 1; w >= 0; w--) {
+    const word = keyWords[w];
     let all = 0xffffffff, any = 0;
-    for (let i = w; i < from.length; i += width) {
-      all &= from[i];
-      any |= from[i];
+    for (let i = 0; i < m; i++) {
+      all &= word[i];
+      any |= word[i];
     }
     const varying = (all ^ any) >>> 0;
     for (let shift = 0; shift < 32; shift += DIGIT_BITS) {
       if (((varying >>> shift) & DIGIT_MASK) === 0) continue;
-      count.fill(0);
-      for (let i = w; i < from.length; i += width) count[(from[i] >>> shift) & DIGIT_MASK]++;
+      const next = new Int32Array(1 << DIGIT_BITS);
+      for (let i = 0; i < m; i++) next[(word[i] >>> shift) & DIGIT_MASK]++;
       let sum = 0;
       for (let d = 0; d <= DIGIT_MASK; d++) {
-        const c = count[d];
-        count[d] = sum;
+        const c = next[d];
+        next[d] = sum;
         sum += c;
       }
-      for (let i = 0; i < m; i++) {
-        const at = width * i;
-        const j = width * count[(from[at + w] >>> shift) & DIGIT_MASK]++;
-        for (let v = 0; v < width; v++) to[j + v] = from[at + v];
-      }
-      const t = from;
-      from = to;
-      to = t;
+      passes.push({ word: w, shift, next });
     }
+  }
+  let from: Uint32Array = records;
+  let to: Uint32Array = new Uint32Array(passes.length > 0 ? records.length : 0);
+  for (const { word, shift, next } of passes) {
+    for (let i = 0; i < m; i++) {
+      const at = width * i;
+      const j = width * next[(from[at + word] >>> shift) & DIGIT_MASK]++;
+      for (let v = 0; v < width; v++) to[j + v] = from[at + v];
+    }
+    const t = from;
+    from = to;
+    to = t;
   }
   return from;
 }
@@ -147,30 +155,26 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
     cols[k] = Math.floor(ends[2 * e] / tolerance) + 0;
     rows[k] = Math.floor(ends[2 * e + 1] / tolerance) + 0;
   }
-  // Records: the key words that vary, the end, (a pad to 8 bytes), x and y; sorted by (group, column, row).
+  // Records: the key words that vary and the end; sorted by (group, column, row). The coordinates stay
+  // out of the records (the sort moves 3 words an end, not 8) and are gathered once, in sorted order.
   const groupVaries = groups.some((g) => g !== groups[0]);
   const keyWords = [groups, ...getKeyWords(cols), ...getKeyWords(rows)].filter((word) => word.some((v) => v !== word[0]));
   const keyWidth = keyWords.length;
-  const width = 2 * Math.ceil((keyWidth + 1) / 2) + 4;
+  const width = keyWidth + 1;
   let records: Uint32Array = new Uint32Array(m * width);
-  let coords = new Float64Array(records.buffer);
   for (let k = 0; k < m; k++) {
-    const e = valid[k];
     for (let v = 0; v < keyWidth; v++) records[width * k + v] = keyWords[v][k];
-    records[width * k + keyWidth] = e;
-    coords[(width * k) / 2 + width / 2 - 2] = ends[2 * e];
-    coords[(width * k) / 2 + width / 2 - 1] = ends[2 * e + 1];
+    records[width * k + keyWidth] = valid[k];
   }
-  records = sortRecords(records, width, keyWidth);
-  coords = new Float64Array(records.buffer);
+  records = sortRecords(records, width, keyWords);
   // Sorted position → end, and the ends' coordinates and groups in sorted order.
   const perm = new Int32Array(m);
   const sx = new Float64Array(m), sy = new Float64Array(m), sg = new Int32Array(m);
   for (let p = 0; p < m; p++) {
     const e = records[width * p + keyWidth];
     perm[p] = e;
-    sx[p] = coords[(width * p) / 2 + width / 2 - 2];
-    sy[p] = coords[(width * p) / 2 + width / 2 - 1];
+    sx[p] = ends[2 * e];
+    sy[p] = ends[2 * e + 1];
     sg[p] = groupVaries ? records[width * p] : groups[0];
   }
 

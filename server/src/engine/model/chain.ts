@@ -112,12 +112,13 @@ function sortRecords(records: Uint32Array, width: number, keyWords: readonly Uin
  * flipped for negatives), whose unsigned order is numeric order.
  */
 function getKeyWords(values: Float64Array): Uint32Array[] {
+  const m = values.length;
   let min = Infinity, max = -Infinity;
-  for (const v of values) {
+  for (let i = 0; i < m; i++) {
+    const v = values[i];
     if (v < min) min = v;
     if (v > max) max = v;
   }
-  const m = values.length;
   if (max - min < 2 ** 32) {
     const word = new Uint32Array(m);
     for (let i = 0; i < m; i++) word[i] = values[i] - min;
@@ -136,6 +137,13 @@ function getKeyWords(values: Float64Array): Uint32Array[] {
     }
   }
   return [hi, lo];
+}
+
+/** True when not every word is the first. */
+function varies(words: Uint32Array): boolean {
+  const first = words[0];
+  for (let i = 1; i < words.length; i++) if (words[i] !== first) return true;
+  return false;
 }
 
 /** Joins pieces whose ends lie within `tolerance` (> 0, same unit as the coordinates) of each other. */
@@ -157,8 +165,8 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
   }
   // Records: the key words that vary and the end; sorted by (group, column, row). The coordinates stay
   // out of the records (the sort moves 3 words an end, not 8) and are gathered once, in sorted order.
-  const groupVaries = groups.some((g) => g !== groups[0]);
-  const keyWords = [groups, ...getKeyWords(cols), ...getKeyWords(rows)].filter((word) => word.some((v) => v !== word[0]));
+  const groupVaries = varies(groups);
+  const keyWords = [groups, ...getKeyWords(cols), ...getKeyWords(rows)].filter(varies);
   const keyWidth = keyWords.length;
   const width = keyWidth + 1;
   let records: Uint32Array = new Uint32Array(m * width);

@@ -66,6 +66,7 @@ export function parsePathData(d: string, baseOffset: number, matrix: Matrix | nu
 // Character codes.
 const TAB = 9, LF = 10, FF = 12, CR = 13, SPACE = 32, PLUS = 43, COMMA = 44, MINUS = 45, DOT = 46;
 const DIGIT_0 = 48, DIGIT_1 = 49, DIGIT_9 = 57, UPPER_E = 69, LOWER_E = 101;
+const UPPER_M = 77, LOWER_M = 109, UPPER_Z = 90, LOWER_Z = 122, LOWER_A = 97;
 
 /** Segment kinds while a group is turned into a segment. */
 const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
@@ -84,6 +85,24 @@ const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12,
   1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
 /** Most digits whose integer value is below 2^53, so it is exact in a double. */
 const MAX_EXACT_DIGITS = 15;
+
+/**
+ * The drawing command (upper case) of a command letter's character code, or null for M, Z and
+ * anything else: a table look-up instead of a string's toUpperCase per command.
+ */
+function getDrawCommand(code: number): DrawCommand | null {
+  switch (code) {
+    case 76: case 108: return 'L';
+    case 72: case 104: return 'H';
+    case 86: case 118: return 'V';
+    case 67: case 99: return 'C';
+    case 83: case 115: return 'S';
+    case 81: case 113: return 'Q';
+    case 84: case 116: return 'T';
+    case 65: case 97: return 'A';
+    default: return null;
+  }
+}
 
 /** Number of arguments per group, by upper-case command letter. */
 function getArity(upper: string): number {
@@ -155,7 +174,7 @@ class PathDataParser {
     if (this.i >= this.n) return; // empty: rendering disabled, no error (SVG 2 Paths, 'd' property)
     if (this.isNone()) return;
     const first = d.charCodeAt(this.i);
-    if (first !== 77 && first !== 109) { // not M / m
+    if (first !== UPPER_M && first !== LOWER_M) {
       this.failAtChar(this.i, `path data must start with a moveto ('M' or 'm'), found ${this.describe(this.i)}`);
       return;
     }
@@ -165,32 +184,27 @@ class PathDataParser {
       this.skipWsp();
       if (this.i >= this.n) break;
       const at = this.i;
-      const ch = d[at];
+      const c = d.charCodeAt(at);
       let ok: boolean;
-      switch (ch) {
-        case 'M': case 'm':
-          ok = this.readMoveto(ch === 'm', at);
-          afterGroups = true;
-          afterClose = false;
-          break;
-        case 'Z': case 'z':
-          this.readClosepath(at);
-          ok = true;
-          afterGroups = false;
-          afterClose = true;
-          break;
-        case 'L': case 'l': case 'H': case 'h': case 'V': case 'v': case 'C': case 'c':
-        case 'S': case 's': case 'Q': case 'q': case 'T': case 't': case 'A': case 'a': {
-          const upper = ch.toUpperCase() as DrawCommand;
+      if (c === UPPER_M || c === LOWER_M) {
+        ok = this.readMoveto(c === LOWER_M, at);
+        afterGroups = true;
+        afterClose = false;
+      } else if (c === UPPER_Z || c === LOWER_Z) {
+        this.readClosepath(at);
+        ok = true;
+        afterGroups = false;
+        afterClose = true;
+      } else {
+        const upper = getDrawCommand(c);
+        if (upper !== null) {
           if (afterClose) this.finishSubpath(null); // a drawing command after Z starts a new subpath
           this.i = at + 1;
           this.skipWsp(); // a command letter may be followed by wsp only
-          ok = this.readGroups(upper, ch !== upper, at);
+          ok = this.readGroups(upper, c >= LOWER_A, at);
           afterGroups = true;
           afterClose = false;
-          break;
-        }
-        default: {
+        } else {
           const what = afterGroups ? 'a number or a command letter' : afterClose ? "a command letter after 'Z'" : 'a command letter';
           this.failAtChar(at, `expected ${what}, found ${this.describe(at)}`);
           ok = false;

@@ -59,18 +59,25 @@ export function sortByCode(codes: Uint32Array): Int32Array {
   return from;
 }
 
+/**
+ * Boxes of pieces [from, to) grown by `pad`, [minX, minY, maxX, maxY] each, written into `box` from
+ * its start (a piece is monotone, so its box is the box of its end points).
+ */
+function writePieceBoxes(buf: Float64Array, pad: number, from: number, to: number, box: Float64Array): void {
+  for (let i = from, k = 0; i < to; i++, k += 4) {
+    const o = i * STRIDE;
+    box[k] = Math.min(buf[o + 4]!, buf[o + 6]!) - pad;
+    box[k + 1] = Math.min(buf[o + 5]!, buf[o + 7]!) - pad;
+    box[k + 2] = Math.max(buf[o + 4]!, buf[o + 6]!) + pad;
+    box[k + 3] = Math.max(buf[o + 5]!, buf[o + 7]!) + pad;
+  }
+}
+
 /** findPiecePairs for a few pieces: every pair, in order. */
 function findPairsDirectly(P: Pieces, pad: number, keep: (i: number, j: number) => boolean): Int32Array {
   const n = P.count;
-  const buf = P.buf;
   const box = new Float64Array(4 * n);
-  for (let i = 0; i < n; i++) {
-    const o = i * STRIDE;
-    box[4 * i] = Math.min(buf[o + 4]!, buf[o + 6]!) - pad;
-    box[4 * i + 1] = Math.min(buf[o + 5]!, buf[o + 7]!) - pad;
-    box[4 * i + 2] = Math.max(buf[o + 4]!, buf[o + 6]!) + pad;
-    box[4 * i + 3] = Math.max(buf[o + 5]!, buf[o + 7]!) + pad;
-  }
+  writePieceBoxes(P.buf, pad, 0, n, box);
   const pairs: number[] = [];
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
@@ -176,21 +183,20 @@ export function findPiecePairs(
   const poll = () => {
     if ((++visits % POLL_EVERY) === 0 && isCancelled?.()) stopped = true;
   };
-  // Piece boxes grown by `pad`, copied per leaf into `boxA` and `boxB` (a piece is monotone, so
-  // its box is the box of its end points).
+  // Piece boxes of two leaves, written from the piece buffer when a leaf is visited: the join
+  // visits a leaf's pairs with its neighbours one after the other, so the boxes of leaf `boxesOfA`
+  // are kept for as long as it stays the first of the pair, and the second leaf's are written only
+  // when one of the first leaf's pieces meets its box.
   const boxA = new Float64Array(4 * LEAF_PIECES), boxB = new Float64Array(4 * LEAF_PIECES);
-  const loadBoxes = (g: number, into: Float64Array) => {
-    for (let i = leafFirst[g]!, k = 0; i < leafEnd[g]!; i++, k++) {
-      const o = i * STRIDE;
-      into[4 * k] = Math.min(buf[o + 4]!, buf[o + 6]!) - pad;
-      into[4 * k + 1] = Math.min(buf[o + 5]!, buf[o + 7]!) - pad;
-      into[4 * k + 2] = Math.max(buf[o + 4]!, buf[o + 6]!) + pad;
-      into[4 * k + 3] = Math.max(buf[o + 5]!, buf[o + 7]!) + pad;
-    }
+  let boxesOfA = -1;
+  const loadA = (g: number) => {
+    if (boxesOfA === g) return;
+    writePieceBoxes(buf, pad, leafFirst[g]!, leafEnd[g]!, boxA);
+    boxesOfA = g;
   };
   const leafSelf = (g: number) => {
     poll();
-    loadBoxes(g, boxA);
+    loadA(g);
     const s = leafFirst[g]!, m = leafEnd[g]! - s;
     for (let a = 0; a < m; a++) {
       for (let b = a + 1; b < m; b++) if (meet(boxA, a, boxA, b)) push(s + a, s + b);
@@ -198,11 +204,15 @@ export function findPiecePairs(
   };
   const leafPair = (g: number, h: number) => {
     poll();
-    loadBoxes(g, boxA);
-    loadBoxes(h, boxB);
+    loadA(g);
     const gs = leafFirst[g]!, gm = leafEnd[g]! - gs, hs = leafFirst[h]!, hm = leafEnd[h]! - hs;
+    let loadedB = false;
     for (let a = 0; a < gm; a++) {
       if (!meet(boxA, a, leafBox, h)) continue;
+      if (!loadedB) {
+        writePieceBoxes(buf, pad, hs, hs + hm, boxB);
+        loadedB = true;
+      }
       for (let b = 0; b < hm; b++) if (meet(boxA, a, boxB, b)) push(Math.min(gs + a, hs + b), Math.max(gs + a, hs + b));
     }
   };

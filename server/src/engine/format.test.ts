@@ -53,17 +53,17 @@ describe('formatNumber and fillTemplate against their regular-expression referen
     fc.constantFrom(1e21, -1e21, 2 ** 53, 1e300, -0, 0.0005, -0.0005, 0.9995, 1e-9, 9.9e-10, 123456789.0004),
   );
 
-  it('formats every number as the reference does, at 0 to 6 digits', () => {
+  it('formats every number as the reference does, at 0 to 6 digits (fast-check, seed 61)', () => {
     fc.assert(fc.property(numbers, fc.integer({ min: 0, max: 6 }), (v, digits) => {
       expect(formatNumber(v, digits)).toBe(referenceFormatNumber(v, digits));
-    }), { numRuns: 20000 });
+    }), { seed: 61, numRuns: 20000 });
   });
 
   it('prints integers without decimals, the exact value beyond 2^53 and exponents from 1e21', () => {
     expect([formatNumber(42), formatNumber(-7), formatNumber(2 ** 60), formatNumber(1e21)]).toEqual(['42', '-7', '1152921504606846976', '1e+21']);
   });
 
-  it('fills templates as the reference does, the same template many times over', () => {
+  it('fills templates as the reference does, the same template many times over (fast-check, seed 67)', () => {
     const templates = fc.constantFrom(
       'Contour #{contour} is open: its end is {gapMm} mm from its start.',
       'Not analysed: {count|entity|entities}; {count|one|} {missing} {a}{b}',
@@ -74,6 +74,6 @@ describe('formatNumber and fillTemplate against their regular-expression referen
     const data = fc.record({ contour: numbers, gapMm: numbers, count: fc.oneof(fc.constant(1), numbers), a: fc.oneof(fc.string(), fc.boolean(), numbers), b: fc.string() }, { requiredKeys: [] });
     fc.assert(fc.property(templates, data, (t, d) => {
       expect(fillTemplate(t, d)).toBe(referenceFillTemplate(t, d));
-    }), { numRuns: 5000 });
+    }), { seed: 67, numRuns: 5000 });
   });
 });

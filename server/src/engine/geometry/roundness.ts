@@ -744,9 +744,18 @@ const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBo
 
 const undef = (reason: string) => ({ value: null, reason }) as const;
 
+/** The reasons every open (or extent-less) contour shares: one object each, not one per contour (a
+ *  drawing of loose entities has hundreds of thousands of open contours). Results are read only. */
+const NOT_CLOSED = Object.freeze(undef('the contour is not closed'));
+const NO_EXTENT = Object.freeze(undef('the contour has no extent'));
+
+/** The last roundness figures of an open contour: the next one with the same reason and Bonnesen
+ *  figure (usually the measures' one shared "open contour" object) shares them. */
+let lastOpen: ContourRoundness | null = null;
+
 /** The hull figures of a contour with these metrics, from its flattened hull's measures. */
 function toContourHull(h: HullMeasures, metrics: ContourMetrics, selfCrossing: boolean): ContourHull {
-  const convexity: Measured = metrics.areaMm2.value === null ? { value: null, reason: metrics.areaMm2.reason }
+  const convexity: Measured = metrics.areaMm2.value === null ? metrics.areaMm2
     : selfCrossing ? { value: null, reason: 'the contour crosses itself, so its net area is not the material area' }
     // The flattened hull lies inside the true one (area short by ≤ areaErrorMm2), so the ratio may
     // exceed 1 by that much; the true ratio never does (the hull contains the contour).
@@ -765,12 +774,15 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   const deficit = metrics.deficitMm2;
   const bonnesen: Measured = selfCrossing
     ? { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' }
-    : deficit.value === null ? { value: null, reason: deficit.reason } : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
+    : deficit.value === null ? deficit : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
   if (!metrics.closed || size === 0) {
     // Only the hull's measures: no polyline or hull vertices are kept.
     const hull = toContourHull(getContourHullMeasures(contour, flatteningMm), metrics, selfCrossing);
-    const why = undef(metrics.closed ? 'the contour has no extent' : 'the contour is not closed');
-    return { hull, roundness: { inradius: why, circumradius: why, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: why } };
+    const why = metrics.closed ? NO_EXTENT : NOT_CLOSED;
+    if (lastOpen?.inradius !== why || lastOpen.bonnesenBoundMm !== bonnesen || lastOpen.selfCrossing !== selfCrossing) {
+      lastOpen = Object.freeze({ inradius: why, circumradius: why, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: why });
+    }
+    return { hull, roundness: lastOpen };
   }
   const poly = getTransientPolyline(contour, flatteningMm);
   const hullFigures = getPolylineHull(poly);

@@ -2,7 +2,9 @@
  * DXF reading and analysis speed side by side, and peak memory (run: `npx vitest bench --run test/bench/dxf.bench.ts`).
  *
  * Input: loose LINE/ARC entities (open outlines of 3 lines + 1 arc, shuffled; looseDxf.ts) at 1e4, 1e5
- * and 1e6 entities. Timed in one process, in turn, for each size (median of 3 runs, 1 run at 1e6):
+ * and 1e6 entities. Timed in one process, in turn, for each size, after warming all four alike (10 calls
+ * at 1e4, 2 at 1e5, 1 at 1e6 — dxf-parser not at 1e6, where one call takes ~3 GB): median of 3 runs, 1 run
+ * at 1e6:
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
  * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
@@ -35,7 +37,10 @@ for (const n of sizes) {
   const text = makeLooseDxf(n);
   largest = text;
   const runs = n >= 1e6 ? 1 : 3;
-  analyze(text, 'dxf'); // warm-up: the first call compiles the hot paths
+  // Warm-up of all four alike, as in geometry.bench.ts: one warm-up call left read at 1e4 ~4× above
+  // its steady state (115 ms against ~30 ms).
+  const warmUps = n >= 1e6 ? 1 : n >= 1e5 ? 2 : 10;
+  for (let i = 0; i < warmUps; i++) { tokenizeFloor(text); read(text); analyze(text, 'dxf'); if (n < 1e6) new DxfParser().parseSync(text); }
   const fl = time(runs, () => tokenizeFloor(text)).ms;
   const rd = time(runs, () => read(text)).ms;
   const an = time(runs, () => analyze(text, 'dxf')).ms;

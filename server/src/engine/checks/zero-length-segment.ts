@@ -1,20 +1,6 @@
-import { getSegmentLength, getVectorLength } from '../geometry/measure';
-import type { Segment } from '../types';
+import { getSegmentEnd, getSegmentLength, getVectorLength } from '../geometry/measure';
 import { ZERO_LENGTH_MM } from '../geometry/tolerances';
 import { defineCheck } from './defineCheck';
-
-/** Distance between a segment's ends (getSegmentEnd's point, without its array per segment). */
-function getChord(s: Segment): number {
-  switch (s.kind) {
-    case 'line':
-    case 'arc':
-      return getVectorLength(s.x1 - s.x0, s.y1 - s.y0);
-    case 'quad':
-      return getVectorLength(s.x2 - s.x0, s.y2 - s.y0);
-    case 'cubic':
-      return getVectorLength(s.x3 - s.x0, s.y3 - s.y0);
-  }
-}
 
 /** A segment that goes nowhere: a repeated point. Machines may pause on it and leave a burn mark. */
 export default defineCheck({
@@ -31,7 +17,8 @@ export default defineCheck({
       const { contour } = ctx.contours[pos]!;
       for (const segment of contour.segments) {
         // A curve is never shorter than its chord, so only a segment whose ends (nearly) meet needs its length.
-        if (getChord(segment) >= ZERO_LENGTH_MM) continue;
+        const [ex, ey] = getSegmentEnd(segment);
+        if (getVectorLength(ex - segment.x0, ey - segment.y0) >= ZERO_LENGTH_MM) continue;
         const lengthMm = getSegmentLength(segment);
         if (lengthMm >= ZERO_LENGTH_MM) continue;
         ctx.report({ messageId: 'zero', span: segment.span, contour: contour.index, data: { contour: contour.index, lengthMm } });

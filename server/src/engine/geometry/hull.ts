@@ -625,15 +625,10 @@ function getHullOfCoordinates(xs: Float64Array, ys: Float64Array, n: number): Hu
   return getHullIndices(xs, ys, candidates, candidates.length);
 }
 
-/** Convex hull of the points (xs[i], ys[i]): counter-clockwise in y-up axes from the lexicographically
- *  least point, no collinear vertices. */
-export function getConvexHullOfCoordinates(xs: Float64Array, ys: Float64Array): [number, number][] {
-  return hullPoints(xs, ys, getHullOfCoordinates(xs, ys, xs.length));
-}
-
-/** Convex hull, counter-clockwise in y-up axes, no collinear vertices. */
+/** Convex hull: counter-clockwise in y-up axes from the lexicographically least point, no collinear vertices. */
 export function getConvexHull(points: readonly (readonly [number, number])[]): [number, number][] {
-  return getConvexHullOfCoordinates(Float64Array.from(points, (p) => p[0]), Float64Array.from(points, (p) => p[1]));
+  const xs = Float64Array.from(points, (p) => p[0]), ys = Float64Array.from(points, (p) => p[1]);
+  return hullPoints(xs, ys, getHullOfCoordinates(xs, ys, xs.length));
 }
 
 /** Area and perimeter of a contour's convex hull, with their error bounds. */

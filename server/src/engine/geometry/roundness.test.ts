@@ -82,6 +82,47 @@ describe('roundness check values', () => {
   });
 });
 
+describe('finely divided outlines (more search pieces than MAX_ROUNDNESS_PIECES: chords reduced, bound widened)', () => {
+  it('gives a regular 10 000-gon R = 1, ρ = cos(π/n) and t_MZ = 1 − cos(π/n) within the stated bounds, which stay below 2e-5 (REFERENCES.md §2.2)', () => {
+    const n = 10_000;
+    const r = roundnessOf(regularPolygonPoints(n, 1, 0, 0, 0.3));
+    const rho = r.inradius.value!, mz = r.minZone.value!;
+    expect(Math.abs(rho.valueMm - Math.cos(Math.PI / n))).toBeLessThanOrEqual(rho.errorBoundMm + 1e-12);
+    expect(Math.abs(mz.valueMm - (1 - Math.cos(Math.PI / n)))).toBeLessThanOrEqual(mz.errorBoundMm + 1e-12);
+    expect(rho.errorBoundMm).toBeLessThan(2e-5);
+    expect(mz.errorBoundMm).toBeLessThan(2e-5);
+    expect(r.circumradius.value!.valueMm).toBeCloseTo(1, 12);
+  });
+
+  it('gives a circle of radius 50 drawn as 4000 arcs ρ = R = 50 and t_MZ = 0 within the stated bounds (the arcs\' ends alone exceed the pieces searched, so their chords are reduced; definition of the circle)', () => {
+    const n = 4000, r0 = 50;
+    const segs = Array.from({ length: n }, (_, i) => arc(0, 0, r0, 0, 0, r0, (2 * Math.PI * i) / n, (2 * Math.PI) / n));
+    const r = figuresOf(contourFromSegments(segs, true, [r0, 0]));
+    const rho = r.inradius.value!, mz = r.minZone.value!;
+    expect(Math.abs(rho.valueMm - r0)).toBeLessThanOrEqual(rho.errorBoundMm + 1e-9);
+    expect(mz.valueMm).toBeLessThanOrEqual(mz.errorBoundMm + 1e-9);
+    expect(mz.errorBoundMm).toBeLessThan(1e-5 * r0);
+  });
+
+  it('gives a 100 × 60 rectangle with corners of radius 10, each drawn as 2000 lines, ρ = 30 and R = √(40² + 20²) + 10 within the stated bounds (elementary geometry)', () => {
+    const pts: [number, number][] = [];
+    const corners: [number, number, number][] = [[40, 20, 0], [-40, 20, Math.PI / 2], [-40, -20, Math.PI], [40, -20, 1.5 * Math.PI]];
+    for (const [cx, cy, a0] of corners) for (let i = 0; i <= 2000; i++) {
+      const a = a0 + (Math.PI / 2) * (i / 2000);
+      pts.push([cx + 10 * Math.cos(a), cy + 10 * Math.sin(a)]);
+    }
+    const r = roundnessOf(pts);
+    const rho = r.inradius.value!, big = r.circumradius.value!;
+    expect(Math.abs(rho.valueMm - 30)).toBeLessThanOrEqual(rho.errorBoundMm + 1e-9);
+    expect(rho.errorBoundMm).toBeLessThan(1e-4);
+    // The vertices lie on the corner arcs, π/4000 apart: the farthest of them falls short of the true
+    // farthest point by at most the sagitta of half a step, 10(1 − cos(π/8000)).
+    const trueR = Math.hypot(40, 20) + 10;
+    expect(big.valueMm).toBeLessThanOrEqual(trueR + 1e-12);
+    expect(big.valueMm).toBeGreaterThanOrEqual(trueR - 10 * (1 - Math.cos(Math.PI / 8000)) - 1e-12);
+  });
+});
+
 describe('smallest enclosing circle', () => {
   // Reference: Welzl's move-to-front iteration (Welzl 1991, REFERENCES.md §3.3) as roundness.ts had
   // it, deciding "inside" with Math.hypot; the fast test must take every decision the same way.

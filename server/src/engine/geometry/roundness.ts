@@ -21,15 +21,18 @@
  *   exactly on the polyline by horizontal slabs (between consecutive vertex/crossing heights every
  *   crossing x is linear in y, so the slab's ∫w² dx is linear and its midpoint value is exact).
  * Curved outlines are flattened within δ (hull.ts), once per contour for the hull, R and the searches;
- * the searches keep arcs of circles exact and use the chords of everything else. Max and min
- * distances then move by ≤ δ (the searches' δ counts only flattened pieces), so R and ρ carry ±δ and
- * t_MZ ±2δ on top of the search tolerance; both are in the stated error bound.
+ * the searches keep arcs of circles exact and use the chords of everything else, reduced to at most
+ * MAX_ROUNDNESS_PIECES pieces on finely divided contours (simplify.ts, which adds the distance it moves
+ * them to δ). Max and min distances then move by ≤ δ (the searches' δ counts only flattened and
+ * reduced pieces), so R and ρ carry ±δ and t_MZ ±2δ on top of the search tolerance; both are in the
+ * stated error bound.
  */
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
 import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
 import { getVectorLength } from './length';
+import { simplifyClosedPolyline } from './simplify';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -45,8 +48,10 @@ export const MAX_WINDING_INTEGRAL_VERTICES = 20000;
 /** Most search pieces (lines, chords of flattened curves, arcs of circles) for the inradius and
  *  minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS cells queries the piece index, but near
  *  a medial axis many pieces are almost equally far, so a cell still visits a share of them growing
- *  with the piece count. Above it those figures are undefined with this reason; the circumradius and
- *  hull are still given. */
+ *  with the piece count. A contour with more has its chords reduced to this many (simplify.ts), and
+ *  the distance that moves them joins the stated error bounds (a tessellated circle of radius R needs
+ *  about 4R(1 − cos(π/2000)) ≈ 5e-6·R); only when the reduction's work cap is reached are those
+ *  figures undefined with the reason. */
 export const MAX_ROUNDNESS_PIECES = 2000;
 
 type Pt = readonly [number, number];
@@ -156,14 +161,26 @@ function countSearchPieces(poly: Polyline): number {
 /**
  * A flattened contour as search pieces: arcs of circles stay exact arcs (their chords are dropped),
  * everything else is its chords. δ is the largest deviation of a flattened piece or of an arc from
- * its circle, so distances to the outline are within ±δ of distances to the contour.
+ * its circle, so distances to the outline are within ±δ of distances to the contour. With `reduced`,
+ * only the vertices it keeps start chords, each running to the next kept vertex, and its deviation
+ * adds to that of the flattened pieces (the reduced chords lie within it of the flattened ones);
+ * when it reduced circle pieces too, they are chords like the rest.
  */
-function outlineFromPolyline(poly: Polyline, contour: Contour, toleranceMm: number): SearchOutline {
+function outlineFromPolyline(poly: Polyline, contour: Contour, toleranceMm: number, reduced?: ReducedVertices): SearchOutline {
   const { xs, ys, pieceFirst } = poly, n = xs.length, count = pieceFirst.length;
   const pieces: SearchPiece[] = [];
-  let deviation = poly.offCircleDeviationMm;
+  const circles = reduced?.circles ?? true;
+  let deviation = (circles ? poly.offCircleDeviationMm : poly.deviationMm) + (reduced?.deviationMm ?? 0);
+  const keep = reduced?.keep;
+  let next: Int32Array | null = null;
+  if (keep) {
+    // The next kept vertex after each vertex, cyclically (two passes backwards).
+    next = new Int32Array(n);
+    let k = -1;
+    for (let pass = 0; pass < 2; pass++) for (let i = n - 1; i >= 0; i--) { next[i] = k; if (keep[i]) k = i; }
+  }
   const endOf = (k: number) => (k + 1 < count ? pieceFirst[k + 1]! : n);
-  const circleOf = (k: number) => (poly.pieceOnCircle[k] ? getArcCircle(contour.segments[poly.pieceSegment[k]!]!, toleranceMm) : null);
+  const circleOf = (k: number) => (circles && poly.pieceOnCircle[k] ? getArcCircle(contour.segments[poly.pieceSegment[k]!]!, toleranceMm) : null);
   for (let k = 0; k < count; k++) {
     const end = endOf(k), first = pieceFirst[k]!;
     const ax = xs[first]!, ay = ys[first]!, bx = xs[end % n]!, by = ys[end % n]!;
@@ -182,11 +199,52 @@ function outlineFromPolyline(poly: Polyline, contour: Contour, toleranceMm: numb
       continue;
     }
     for (let i = first; i < end; i++) {
-      const i1 = (i + 1) % n;
+      if (keep && !keep[i]) continue;
+      const i1 = next ? next[i]! : (i + 1) % n;
       pieces.push({ ax: xs[i]!, ay: ys[i]!, bx: xs[i1]!, by: ys[i1]!, circle: null });
     }
   }
   return { pieces, deviationMm: deviation };
+}
+
+/** Which vertices of a polyline a reduced outline keeps (1 = kept), whether its circle pieces stay
+ *  circles, and the distance it moved the chords. */
+interface ReducedVertices {
+  readonly keep: Uint8Array;
+  readonly circles: boolean;
+  readonly deviationMm: number;
+}
+
+/**
+ * The polyline's chords reduced so that the search sees at most `maxPieces` pieces (simplify.ts):
+ * the ends of circle pieces stay (each circle piece stays one search piece) and chord vertices between
+ * them may go; when those ends alone are too many (a contour of many short arcs), the circle pieces'
+ * chords are reduced with the rest. Null when neither can be done (see `simplifyClosedPolyline`).
+ */
+function reduceVertices(poly: Polyline, maxPieces: number): ReducedVertices | null {
+  return reduceWith(poly, maxPieces, true) ?? reduceWith(poly, maxPieces, false);
+}
+
+function reduceWith(poly: Polyline, maxPieces: number, circles: boolean): ReducedVertices | null {
+  const { xs, ys, pieceFirst } = poly, n = xs.length, count = pieceFirst.length;
+  // Per vertex: 1 = the end of a circle piece (fixed), 2 = inside a circle piece (not a chord vertex).
+  const role = new Uint8Array(n);
+  for (let k = 0; circles && k < count; k++) {
+    if (!poly.pieceOnCircle[k]) continue;
+    const first = pieceFirst[k]!, end = k + 1 < count ? pieceFirst[k + 1]! : n;
+    for (let i = first + 1; i < end; i++) role[i] = 2;
+    role[first] = 1;
+    role[end % n] = 1;
+  }
+  let m = 0;
+  for (let i = 0; i < n; i++) if (role[i] !== 2) m++;
+  const order = new Int32Array(m), fixed = new Uint8Array(m);
+  for (let i = 0, k = 0; i < n; i++) if (role[i] !== 2) { order[k] = i; fixed[k++] = role[i]!; }
+  const s = simplifyClosedPolyline(xs, ys, order, fixed, maxPieces);
+  if (!s) return null;
+  const keep = new Uint8Array(n);
+  for (let k = 0; k < m; k++) keep[order[k]!] = s.keep[k]!;
+  return { keep, circles, deviationMm: s.deviationMm };
 }
 
 /** Whether the direction (dx, dy) from a circle piece's centre lies in its sector. */
@@ -799,11 +857,16 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
     }
   }
   const searchPieces = countSearchPieces(poly);
+  let reduced: ReducedVertices | undefined;
   if (searchPieces > MAX_ROUNDNESS_PIECES) {
-    const why = undef(`the flattened contour has ${searchPieces} pieces, more than the ${MAX_ROUNDNESS_PIECES} searched`);
-    return { hull, roundness: { inradius: why, circumradius, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: windingSquared } };
+    const r = reduceVertices(poly, MAX_ROUNDNESS_PIECES);
+    if (!r) {
+      const why = undef(`the flattened contour has ${searchPieces} pieces, and reducing them to the ${MAX_ROUNDNESS_PIECES} searched needs more work than is allowed`);
+      return { hull, roundness: { inradius: why, circumradius, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: windingSquared } };
+    }
+    reduced = r;
   }
-  const outline = outlineFromPolyline(poly, contour, flatteningMm);
+  const outline = outlineFromPolyline(poly, contour, flatteningMm, reduced);
   const searchDelta = outline.deviationMm;
   const lic = inscribedCircleOf(outline);
   const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + searchDelta);

@@ -1,9 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import paper from 'paper';
+import { svgPathProperties } from 'svg-path-properties';
 import { findContourCrossings, findIntersections, findSelfIntersections } from './intersect';
-import { arc, circleArcs, contourFromSegments, contoursFromPathData, cubic, line, polygonSegments } from '../../../../test/support/shapes';
-import type { Contour } from '../types';
+import {
+  arc, circleArcs, contourFromSegments, contoursFromPathData, cubic, line, polygonSegments, reverseContour, reverseSegment,
+  rotateContourStart,
+} from '../../../../test/support/shapes';
+import type { Contour, Segment, SourceSpan } from '../types';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
 const points = (c: Contour) => findSelfIntersections(c).intersections.map((x) => [x.kind, x.x, x.y] as const);
@@ -120,6 +124,160 @@ describe('findSelfIntersections on curves', () => {
     const r = findIntersections([polygon([[0, 0], [10, 0], [10, 5], [0, 5]]), polygon([[4, 0], [14, 0], [14, -5], [4, -5]])]);
     expect(r.overlaps.map((o) => o.length)).toEqual([6]);
     expect(r.intersections).toEqual([]);
+  });
+});
+
+// ---------------------------------------------------------------- double cuts and where a loop starts
+
+/** The contour with segment i given the source span [base + 10i, base + 10i + 5]. */
+const withSpans = (c: Contour, base: number): Contour => ({
+  ...c,
+  segments: c.segments.map((s, i) => ({ ...s, span: { start: base + 10 * i, end: base + 10 * i + 5 } })),
+});
+/** The smallest span holding the spans of segments `indices` of a contour numbered by withSpans(…, 0). */
+const hullOfSpans = (indices: readonly number[]): SourceSpan => ({ start: 10 * Math.min(...indices), end: 10 * Math.max(...indices) + 5 });
+
+describe('double cuts do not depend on where a loop starts or which way it runs', () => {
+  it('reports a square of side s drawn twice as one double cut of length 4s wherever the copy starts (each corner, each edge midpoint) and whichever way it runs (perimeter of a square, elementary geometry)', () => {
+    const s = 10;
+    const corners: [number, number][] = [[0, 0], [s, 0], [s, s], [0, s]];
+    const square = withSpans(contourFromSegments(polygonSegments(corners, true), true), 0);
+    const starts: [number, number][][] = [];
+    for (let k = 0; k < 4; k++) {
+      const turned = [...corners.slice(k), ...corners.slice(0, k)];
+      const [[x0, y0], [x1, y1]] = turned as [[number, number], [number, number]];
+      starts.push(turned, [[(x0 + x1) / 2, (y0 + y1) / 2], ...turned.slice(1), turned[0]!]);
+    }
+    for (const pts of starts) {
+      for (const back of [false, true]) {
+        const drawn = contourFromSegments(polygonSegments(pts, true), true);
+        const copy = withSpans(back ? reverseContour(drawn) : drawn, 100);
+        const r = findIntersections([square, copy]);
+        expect(r.intersections).toEqual([]);
+        expect(r.overlaps).toHaveLength(1);
+        const o = r.overlaps[0]!;
+        expect(o.length).toBeCloseTo(4 * s, 12);
+        // The run covers every segment of both contours: its spans hold all of them.
+        expect(o.a.span).toEqual({ start: 0, end: 35 });
+        expect(o.b.span).toEqual({ start: 100, end: 100 + 10 * (copy.segments.length - 1) + 5 });
+        // A run round the whole loop is reported from the start of contour a (this module's convention).
+        expect([o.x, o.y, o.a.firstSegment, o.a.lastSegment]).toEqual([0, 0, 0, 3]);
+      }
+    }
+  });
+
+  it('reports a slot cut out along two edges and back as one double cut of length 4 wherever the contour starts, also when the run crosses the start vertex, either way round (by hand)', () => {
+    // Out (0,0)→(2,0)→(4,0), back to (0,0), then round the triangle (0,0), (0,3), (−3,0).
+    const loop = contourFromSegments(polygonSegments([[0, 0], [2, 0], [4, 0], [2, 0], [0, 0], [0, 3], [-3, 0]], true), true);
+    for (const back of [false, true]) {
+      for (let k = 0; k < loop.segments.length; k++) {
+        const c = withSpans(rotateContourStart(back ? reverseContour(loop) : loop, k), 0);
+        const r = findSelfIntersections(c);
+        expect(r.overlaps.map((o) => o.length)).toEqual([4]);
+        // One side of the run is the way out (+x along y = 0, x ≥ 0), the other the way back.
+        const leg = (dir: number) => c.segments.flatMap((g, i) => (g.y0 === 0 && g.y1 === 0 && Math.min(g.x0, g.x1) >= 0 && Math.sign(g.x1 - g.x0) === dir ? [i] : []));
+        const o = r.overlaps[0]!;
+        const bySpan = (p: SourceSpan, q: SourceSpan) => p.start - q.start || p.end - q.end;
+        expect([o.a.span, o.b.span].sort(bySpan)).toEqual([hullOfSpans(leg(1)), hullOfSpans(leg(-1))].sort(bySpan));
+      }
+    }
+  });
+
+  // Loops through 3–7 points of a circle of radius 50 (multiples of 5°), each step a chord, the arc
+  // of the circle or a cubic S-curve off the chord; each with its length from an outside reference.
+  const R = 50;
+  const loopArb = fc
+    .tuple(
+      fc.uniqueArray(fc.integer({ min: 0, max: 71 }), { minLength: 3, maxLength: 7 }),
+      fc.array(fc.tuple(fc.constantFrom('line', 'arc', 'cubic'), fc.constantFrom(-3, -2, -1, 1, 2, 3)), { minLength: 7, maxLength: 7 }),
+    )
+    .map(([steps, kinds]) => {
+      const angles = [...steps].sort((p, q) => p - q).map((d) => (d * 5 * Math.PI) / 180);
+      const v = angles.map((a) => [R * Math.cos(a), R * Math.sin(a)] as const);
+      const segments: Segment[] = [];
+      const lengths: number[] = [];
+      for (let i = 0; i < v.length; i++) {
+        const [x0, y0] = v[i]!, [x1, y1] = v[(i + 1) % v.length]!;
+        const [kind, bulge] = kinds[i]!;
+        const dx = x1 - x0, dy = y1 - y0, h = bulge / 10;
+        if (kind === 'line') {
+          segments.push(line(x0, y0, x1, y1));
+          lengths.push(Math.hypot(dx, dy)); // Pythagoras
+        } else if (kind === 'arc') {
+          const sweep = i + 1 < v.length ? angles[i + 1]! - angles[i]! : angles[0]! + 2 * Math.PI - angles[i]!;
+          segments.push({ ...arc(0, 0, R, 0, 0, R, angles[i]!, sweep), x0, y0, x1, y1 });
+          lengths.push(R * sweep); // REFERENCES.md §2.1: L = r·θ
+        } else {
+          const c = cubic(x0, y0, x0 + dx / 3 - h * dy, y0 + dy / 3 + h * dx, x0 + (2 * dx) / 3 + h * dy, y0 + (2 * dy) / 3 - h * dx, x1, y1);
+          segments.push(c);
+          // svg-path-properties integrates numerically (its own Legendre–Gauss).
+          lengths.push(new svgPathProperties(`M${c.x0} ${c.y0} C${c.x1} ${c.y1} ${c.x2} ${c.y2} ${c.x3} ${c.y3}`).getTotalLength());
+        }
+      }
+      return { loop: contourFromSegments(segments, true), lengths };
+    });
+
+  /**
+   * The contour started midway along its first segment when that is an arc, else null. (Not lines:
+   * a rounded midpoint is off the line by an ulp, and whether lines are collinear is decided exactly;
+   * the square above starts copies at exact midpoints.)
+   */
+  const startMidway = (c: Contour): Contour | null => {
+    const [s, ...rest] = c.segments;
+    if (s!.kind !== 'arc') return null;
+    const half = arc(s!.cx, s!.cy, s!.ux, s!.uy, s!.vx, s!.vy, s!.theta0, s!.sweep / 2);
+    const second = { ...arc(s!.cx, s!.cy, s!.ux, s!.uy, s!.vx, s!.vy, s!.theta0 + s!.sweep / 2, s!.sweep / 2), x0: half.x1, y0: half.y1, x1: s!.x1, y1: s!.y1 };
+    return contourFromSegments([second, ...rest, { ...half, x0: s!.x0, y0: s!.y0 }], true);
+  };
+
+  const rel = (a: number, b: number) => Math.abs(a - b) / b;
+
+  it('reports a loop of chords, arcs and cubics drawn twice as one double cut of its perimeter for every start vertex (also midway along an arc) and both directions of the copy (Pythagoras, L = r·θ of REFERENCES.md §2.1, svg-path-properties for cubics; seed 71)', () => {
+    fc.assert(
+      fc.property(loopArb, ({ loop, lengths }) => {
+        const perimeter = lengths.reduce((p, q) => p + q, 0);
+        const found: number[] = [];
+        for (const back of [false, true]) {
+          for (let k = 0; k < loop.segments.length; k++) {
+            const copy = rotateContourStart(back ? reverseContour(loop) : loop, k);
+            for (const c of [copy, startMidway(copy)]) {
+              if (c === null) continue;
+              const r = findIntersections([loop, c]);
+              expect(r.overlaps).toHaveLength(1);
+              found.push(r.overlaps[0]!.length);
+            }
+          }
+        }
+        for (const l of found) {
+          expect(rel(l, perimeter)).toBeLessThan(1e-6);
+          expect(rel(l, found[0]!)).toBeLessThan(1e-9);
+        }
+      }),
+      { seed: 71, numRuns: 60 },
+    );
+  });
+
+  it('reports a contour that runs along a path of chords, arcs and cubics and back as one double cut of the path\'s length for every start vertex and both directions (Pythagoras, L = r·θ of REFERENCES.md §2.1, svg-path-properties for cubics; seed 72)', () => {
+    fc.assert(
+      fc.property(loopArb, ({ loop, lengths }) => {
+        const path = loop.segments.slice(0, -1);
+        const pathLength = lengths.slice(0, -1).reduce((p, q) => p + q, 0);
+        const fold = contourFromSegments([...path, ...[...path].reverse().map(reverseSegment)], true);
+        const found: number[] = [];
+        for (const back of [false, true]) {
+          for (let k = 0; k < fold.segments.length; k++) {
+            const r = findSelfIntersections(rotateContourStart(back ? reverseContour(fold) : fold, k));
+            expect(r.overlaps).toHaveLength(1);
+            found.push(r.overlaps[0]!.length);
+          }
+        }
+        for (const l of found) {
+          expect(rel(l, pathLength)).toBeLessThan(1e-6);
+          expect(rel(l, found[0]!)).toBeLessThan(1e-9);
+        }
+      }),
+      { seed: 72, numRuns: 60 },
+    );
   });
 });
 

@@ -604,59 +604,96 @@ function spanUnion(a: SourceSpan, b: SourceSpan): SourceSpan {
   return { start: Math.min(a.start, b.start), end: Math.max(a.end, b.end) };
 }
 
+/** The piece `step` (−1, 0 or 1) places along piece p's chain, the first piece of a cyclic chain following its last; −1 past an open chain's end. */
+function getChainNeighbour(P: Pieces, p: number, step: number): number {
+  const ch = chainOf(P, p);
+  const k = p - ch.first + step;
+  if (k >= 0 && k < ch.count) return ch.first + k;
+  return ch.cyclic ? ch.first + ((k + ch.count) % ch.count) : -1;
+}
+
+/**
+ * Groups the overlap records into runs. Two records are in one run when their pieces are the same or
+ * neighbours on both sides, the last and first pieces of a cyclic chain being neighbours like any
+ * others: so the runs found for a stretch cut twice do not depend on where either contour starts or
+ * which way it runs. A run is a connected group, walked depth first from its first record in the
+ * order (contour pair, pieces), with a hash of the records by piece pair: O(r) lookups for r
+ * records, plus a sort per run.
+ * Within one contour a record's pieces are an unordered pair (recorded lower index first): the walk
+ * reads each record it reaches with the piece next to the previous record's side-a piece as its side
+ * a, so that side a of a run crossing the chain's start stays one stretch; it steps forward along
+ * side a first, so that a contour drawn round twice has its first round as side a.
+ */
 function mergeOverlaps(P: Pieces, contours: readonly Contour[], raw: RawOverlap[]): Overlap[] {
   const key = (r: RawOverlap) => [P.contourOf[r.pa]!, P.contourOf[r.pb]!, r.pa, r.pb];
   raw.sort((p, q) => {
     const a = key(p), b = key(q);
     return a[0]! - b[0]! || a[1]! - b[1]! || a[2]! - b[2]! || a[3]! - b[3]!;
   });
+  const byPieces = new Map<number, number>();
+  for (let k = 0; k < raw.length; k++) byPieces.set(raw[k]!.pa * P.count + raw[k]!.pb, k);
+  // Per record: −1 not reached yet, 0 read as recorded, 1 read with its pieces swapped.
+  const swapped = new Int8Array(raw.length).fill(-1);
   const out: Overlap[] = [];
-  let run: { first: RawOverlap; lastA: number; lastB: number; length: number; segsA: number[]; segsB: number[] } | null = null;
-  const flush = () => {
-    if (!run) return;
-    const f = run.first;
-    const ca = P.contourOf[f.pa]!, cb = P.contourOf[f.pb]!;
-    const side = (ci: number, segs: number[]) => {
-      const c = contours[ci]!;
-      const spans = segs.map((s) => (s >= 0 ? c.segments[s]!.span : c.endSpan));
-      return { contour: ci, firstSegment: segs[0]!, lastSegment: segs[segs.length - 1]!, span: spans.reduce(spanUnion) };
-    };
-    const [x, y] = getPiecePoint(P.buf, f.pa, f.a0);
-    out.push({ a: side(ca, run.segsA), b: side(cb, run.segsB), length: run.length, x, y });
-    run = null;
-  };
-  for (const r of raw) {
-    const sa = P.buf[r.pa * STRIDE + 1]!, sb = P.buf[r.pb * STRIDE + 1]!;
-    const sameContours = run && P.contourOf[run.first.pa] === P.contourOf[r.pa] && P.contourOf[run.first.pb] === P.contourOf[r.pb];
-    if (run && sameContours && r.pa - run.lastA <= 1 && Math.abs(r.pb - run.lastB) <= 1) {
-      run.lastA = r.pa;
-      run.lastB = r.pb;
-      run.length += r.length;
-      if (run.segsA[run.segsA.length - 1] !== sa) run.segsA.push(sa);
-      if (!run.segsB.includes(sb)) run.segsB.push(sb);
-      continue;
+  const run: number[] = [];
+  const stack: number[] = []; // record, reading
+  for (let root = 0; root < raw.length; root++) {
+    if (swapped[root] !== -1) continue;
+    run.length = 0;
+    stack.push(root, 0);
+    while (stack.length > 0) {
+      const reading = stack.pop()!, k = stack.pop()!;
+      if (swapped[k] !== -1) continue;
+      swapped[k] = reading;
+      run.push(k);
+      const r = raw[k]!;
+      const p = reading ? r.pb : r.pa, q = reading ? r.pa : r.pb;
+      for (let dp = -1; dp <= 1; dp++) { // the forward step last, so that it is popped first
+        const p2 = getChainNeighbour(P, p, dp);
+        if (p2 < 0) continue;
+        for (let dq = -1; dq <= 1; dq++) {
+          const q2 = getChainNeighbour(P, q, dq);
+          if (q2 < 0 || q2 === p2) continue;
+          const m = byPieces.get(Math.min(p2, q2) * P.count + Math.max(p2, q2));
+          if (m !== undefined && swapped[m] === -1) stack.push(m, raw[m]!.pa === p2 ? 0 : 1);
+        }
+      }
     }
-    flush();
-    run = { first: r, lastA: r.pa, lastB: r.pb, length: r.length, segsA: [sa], segsB: [sb] };
-  }
-  flush();
-  // A run that reaches the end of a cyclic chain continues at its start: join those two runs.
-  for (let k = out.length - 1; k > 0; k--) {
-    const first = out.findIndex((o) => o.a.contour === out[k]!.a.contour && o.b.contour === out[k]!.b.contour);
-    if (first < 0 || first === k) continue;
-    const head = out[first]!, tail = out[k]!;
-    const chain = P.chains[tail.a.contour]!;
-    const lastSeg = P.buf[(chain.first + chain.count - 1) * STRIDE + 1]!;
-    const firstSeg = P.buf[chain.first * STRIDE + 1]!;
-    if (!chain.cyclic || tail.a.lastSegment !== lastSeg || head.a.firstSegment !== firstSeg) continue;
-    out[first] = {
-      a: { ...tail.a, lastSegment: head.a.lastSegment, span: spanUnion(tail.a.span, head.a.span) },
-      b: { ...tail.b, lastSegment: head.b.lastSegment, span: spanUnion(tail.b.span, head.b.span) },
-      length: head.length + tail.length, x: tail.x, y: tail.y,
-    };
-    out.splice(k, 1);
+    out.push(toOverlap(P, contours, raw, run, swapped));
   }
   return out;
+}
+
+/** The overlap of one run of records, each read with its pieces swapped where `swapped` says (sorts `run`). */
+function toOverlap(P: Pieces, contours: readonly Contour[], raw: readonly RawOverlap[], run: number[], swapped: Int8Array): Overlap {
+  const pieceA = (k: number) => (swapped[k] ? raw[k]!.pb : raw[k]!.pa);
+  const pieceB = (k: number) => (swapped[k] ? raw[k]!.pa : raw[k]!.pb);
+  const fromA = (k: number) => (swapped[k] ? raw[k]!.b0 : raw[k]!.a0);
+  run.sort((k, m) => pieceA(k) - pieceA(m) || fromA(k) - fromA(m));
+  // The run starts after the widest gap between its side-a pieces. On a cyclic chain that may be the
+  // gap across the chain's start, which wins ties: a run round the whole loop starts where side a does.
+  const ch = chainOf(P, pieceA(run[0]!));
+  let head = 0;
+  let widest = ch.cyclic ? pieceA(run[0]!) + ch.count - pieceA(run[run.length - 1]!) : Infinity;
+  for (let i = 1; i < run.length; i++) {
+    const gap = pieceA(run[i]!) - pieceA(run[i - 1]!);
+    if (gap > widest) {
+      widest = gap;
+      head = i;
+    }
+  }
+  const first = run[head]!, last = run[(head + run.length - 1) % run.length]!;
+  const side = (piece: (k: number) => number) => {
+    const ci = P.contourOf[piece(first)]!;
+    const c = contours[ci]!;
+    const segment = (k: number) => P.buf[piece(k) * STRIDE + 1]!;
+    const spans = run.map((k) => (segment(k) >= 0 ? c.segments[segment(k)]!.span : c.endSpan));
+    return { contour: ci, firstSegment: segment(first), lastSegment: segment(last), span: spans.reduce(spanUnion) };
+  };
+  let length = 0;
+  for (const k of run) length += raw[k]!.length;
+  const [x, y] = getPiecePoint(P.buf, pieceA(first), fromA(first));
+  return { a: side(pieceA), b: side(pieceB), length, x, y };
 }
 
 /**

@@ -251,3 +251,16 @@ export function rotateContourStart(contour: Contour, k: number): Contour {
   const segs = contour.segments;
   return contourFromSegments([...segs.slice(k), ...segs.slice(0, k)], contour.closed);
 }
+
+/** A plain copy of any segment (a packed one included): its fields in declaration order, for comparisons. */
+export function toPlainSegment(s: Segment): Segment {
+  switch (s.kind) {
+    case 'line': return { kind: 'line', x0: s.x0, y0: s.y0, x1: s.x1, y1: s.y1, span: s.span };
+    case 'quad': return { kind: 'quad', x0: s.x0, y0: s.y0, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, span: s.span };
+    case 'cubic': return { kind: 'cubic', x0: s.x0, y0: s.y0, x1: s.x1, y1: s.y1, x2: s.x2, y2: s.y2, x3: s.x3, y3: s.y3, span: s.span };
+    case 'arc': return {
+      kind: 'arc', x0: s.x0, y0: s.y0, x1: s.x1, y1: s.y1, cx: s.cx, cy: s.cy,
+      ux: s.ux, uy: s.uy, vx: s.vx, vy: s.vy, theta0: s.theta0, sweep: s.sweep, span: s.span,
+    };
+  }
+}

@@ -4,7 +4,8 @@
  * then holds no object per piece or per segment while it is read and chained; the `Segment` objects of
  * the result are made once, in contour order and drawing direction (`appendSegments`).
  */
-import type { Arc, Segment, SourceSpan } from '../../types';
+import { makePackedSegment } from '../../model/packedSegment';
+import type { Segment, SourceSpan } from '../../types';
 import type { PointGroups } from './entities';
 import type { Affine } from './transform';
 
@@ -50,6 +51,7 @@ export interface PieceFacts {
 /** Segment kinds in the store and their number of coordinates (`Segment` field order after `kind`). */
 const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
 const COORDINATES = [4, 6, 8, 12];
+const KIND_NAMES: readonly Segment['kind'][] = ['line', 'quad', 'cubic', 'arc'];
 /** Offset of the end point's x among a segment's coordinates, by kind. */
 const END_AT = [2, 4, 6, 2];
 
@@ -279,14 +281,21 @@ export class PieceStore {
     out[k + 1] = this.coordinates[at + 1];
   }
 
+  /** A block that can hold every piece's coordinates once, for `appendSegments`. */
+  newCoordinateBlock(): CoordinateBlock {
+    return { c: new Float64Array(this.coordinateCount), n: 0 };
+  }
+
   /**
-   * Appends the piece's segments to `out` as `Segment` objects, walked backwards when `reversed` (each
-   * segment reversed, an arc by θ0' = θ0 + sweep, sweep' = −sweep). A segment whose span is the piece's
-   * span gets `pieceSpan`; consecutive segments with equal spans share one object.
+   * Appends the piece's segments to `out`, walked backwards when `reversed` (each segment reversed, an
+   * arc by θ0' = θ0 + sweep, sweep' = −sweep). Their coordinates are copied in drawing order into
+   * `block`, which they then read (packedSegment.ts): each piece may be appended once per block. A
+   * segment whose span is the piece's span gets `pieceSpan`; consecutive segments with equal spans
+   * share one object.
    */
-  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[]): void {
+  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[], block: CoordinateBlock): void {
     const first = this.getFirstSegment(i), end = this.getSegmentEnd(i);
-    const c = this.coordinates, sg = this.segments;
+    const c = this.coordinates, sg = this.segments, d = block.c;
     let last: SourceSpan = pieceSpan;
     for (let k = 0; k < end - first; k++) {
       const r = SEGMENT_WIDTH * (reversed ? end - 1 - k : first + k);
@@ -294,40 +303,27 @@ export class PieceStore {
       if (spanStart !== last.start || spanEnd !== last.end) {
         last = spanStart === pieceSpan.start && spanEnd === pieceSpan.end ? pieceSpan : { start: spanStart, end: spanEnd };
       }
-      const span = last;
-      const a = sg[r + COORDINATE_AT];
-      switch (sg[r + KIND]) {
-        case LINE:
-          out.push(reversed
-            ? { kind: 'line', x0: c[a + 2], y0: c[a + 3], x1: c[a], y1: c[a + 1], span }
-            : { kind: 'line', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], span });
-          break;
-        case QUAD:
-          out.push(reversed
-            ? { kind: 'quad', x0: c[a + 4], y0: c[a + 5], x1: c[a + 2], y1: c[a + 3], x2: c[a], y2: c[a + 1], span }
-            : { kind: 'quad', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], x2: c[a + 4], y2: c[a + 5], span });
-          break;
-        case CUBIC:
-          out.push(reversed
-            ? { kind: 'cubic', x0: c[a + 6], y0: c[a + 7], x1: c[a + 4], y1: c[a + 5], x2: c[a + 2], y2: c[a + 3], x3: c[a], y3: c[a + 1], span }
-            : { kind: 'cubic', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], x2: c[a + 4], y2: c[a + 5], x3: c[a + 6], y3: c[a + 7], span });
-          break;
-        default:
-          out.push(getArc(c, a, reversed, span));
+      const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], n = COORDINATES[kind], o = block.n;
+      if (o + n > d.length) throw new Error('appendSegments: a piece was appended twice to one block');
+      block.n += n;
+      if (!reversed) {
+        for (let j = 0; j < n; j++) d[o + j] = c[a + j];
+      } else if (kind === ARC) {
+        // Ends swapped, centre and semi-diameters kept, θ0' = θ0 + sweep, sweep' = −sweep.
+        d[o] = c[a + 2]; d[o + 1] = c[a + 3]; d[o + 2] = c[a]; d[o + 3] = c[a + 1];
+        for (let j = 4; j < 10; j++) d[o + j] = c[a + j];
+        d[o + 10] = c[a + 10] + c[a + 11]; d[o + 11] = -c[a + 11];
+      } else {
+        // Control points in reverse order.
+        for (let j = 0; j < n; j += 2) { d[o + j] = c[a + n - 2 - j]; d[o + j + 1] = c[a + n - 1 - j]; }
       }
+      out.push(makePackedSegment(KIND_NAMES[kind], d, o, last));
     }
   }
 }
 
-function getArc(c: Float64Array, a: number, reversed: boolean, span: SourceSpan): Arc {
-  const theta0 = c[a + 10], sweep = c[a + 11];
-  return reversed
-    ? {
-      kind: 'arc', x0: c[a + 2], y0: c[a + 3], x1: c[a], y1: c[a + 1], cx: c[a + 4], cy: c[a + 5],
-      ux: c[a + 6], uy: c[a + 7], vx: c[a + 8], vy: c[a + 9], theta0: theta0 + sweep, sweep: -sweep, span,
-    }
-    : {
-      kind: 'arc', x0: c[a], y0: c[a + 1], x1: c[a + 2], y1: c[a + 3], cx: c[a + 4], cy: c[a + 5],
-      ux: c[a + 6], uy: c[a + 7], vx: c[a + 8], vy: c[a + 9], theta0, sweep, span,
-    };
+/** Coordinates of segments in drawing order (see `PieceStore.appendSegments`); `n` are in use. */
+export interface CoordinateBlock {
+  readonly c: Float64Array;
+  n: number;
 }

@@ -347,6 +347,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
   const contours: Contour[] = new Array<Contour>(closedCount + chainCount);
   /** The contour's segments as they are made; each contour gets a copy of exactly its length. */
   const segments: Segment[] = [];
+  const block = store.newCoordinateBlock();
   let nextClosed = 0, nextChain = 0;
   for (let index = 0; index < contours.length; index++) {
     segments.length = 0;
@@ -355,7 +356,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     if (nextClosed < closedCount && (nextChain === chainCount || store.getOrder(closedPieces[nextClosed]) <= chainOrder[nextChain])) {
       p = closedPieces[nextClosed++];
       span = store.getSpan(p, 0);
-      store.appendSegments(p, false, span, segments);
+      store.appendSegments(p, false, span, segments, block);
       closed = true;
       startSpan = store.getSpanLike(p, 1, span);
       endSpan = store.getSpanLike(p, 2, span);
@@ -366,7 +367,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       span = store.getSpan(p, 0);
       for (let l = from; l < to; l++) {
         const i = open[links[l] >> 1];
-        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments);
+        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments, block);
       }
       const last = open[links[to - 1] >> 1];
       startSpan = store.getSpanLike(p, (links[from] & 1) === 1 ? 2 : 1, span);
@@ -380,8 +381,9 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       startX: own[0].x0, startY: own[0].y0,
       span, startSpan, endSpan, elementSpan: span,
       element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
+      closeFix,
     };
-    contours[index] = closeFix ? { ...c, closeFix } : c;
+    contours[index] = c;
   }
   return contours;
 }

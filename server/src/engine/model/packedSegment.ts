@@ -13,11 +13,8 @@
  */
 import type { Arc, Cubic, Line, Quad, Segment, SourceSpan } from '../types';
 
-/** Number of coordinates of a segment of each kind, in the layout above. */
-export const PACKED_COORDINATES = { line: 4, quad: 6, cubic: 8, arc: 12 } as const;
-
 abstract class PackedSegment {
-  constructor(protected readonly c: Float64Array, protected readonly o: number, readonly span: SourceSpan) {}
+  constructor(readonly c: Float64Array, readonly o: number, readonly span: SourceSpan) {}
   get x0(): number { return this.c[this.o]!; }
   get y0(): number { return this.c[this.o + 1]!; }
   get x1(): number { return this.c[this.o + 2]!; }
@@ -63,3 +60,84 @@ export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: num
     case 'arc': return new PackedArc(c, o, span);
   }
 }
+
+/** The same segment with another span (a packed one shares its coordinates). */
+export function withSpan(s: Segment, span: SourceSpan): Segment {
+  return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span) : { ...s, span };
+}
+
+/**
+ * Where a reader writes packed segments: chunks of coordinates that are never moved (segments keep
+ * reading the chunk they were written to), each twice the last up to MAX_CHUNK numbers, the first
+ * sized by the caller's estimate, so a small drawing holds little and a huge one no huge copy.
+ */
+export class PackedSegmentWriter implements SegmentSink {
+  /** The chunk `reserve` last returned an offset into. */
+  chunk: Float64Array;
+  private used = 0;
+
+  constructor(estimate: number) {
+    this.chunk = new Float64Array(Math.min(MAX_CHUNK, Math.max(16, estimate)));
+  }
+
+  /** Room for n coordinates: their offset in `chunk` (a new chunk when the current one is full). */
+  reserve(n: number): number {
+    if (this.used + n > this.chunk.length) {
+      this.chunk = new Float64Array(Math.max(n, Math.min(MAX_CHUNK, 2 * this.chunk.length)));
+      this.used = 0;
+    }
+    const o = this.used;
+    this.used += n;
+    return o;
+  }
+
+  line(x0: number, y0: number, x1: number, y1: number, span: SourceSpan): Segment {
+    const o = this.reserve(4), c = this.chunk;
+    c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1;
+    return new PackedLine(c, o, span);
+  }
+
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, span: SourceSpan): Segment {
+    const o = this.reserve(6), c = this.chunk;
+    c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2;
+    return new PackedQuad(c, o, span);
+  }
+
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, span: SourceSpan): Segment {
+    const o = this.reserve(8), c = this.chunk;
+    c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2; c[o + 6] = x3; c[o + 7] = y3;
+    return new PackedCubic(c, o, span);
+  }
+
+  arc(
+    x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
+    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, span: SourceSpan,
+  ): Segment {
+    const o = this.reserve(12), c = this.chunk;
+    c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = cx; c[o + 5] = cy;
+    c[o + 6] = ux; c[o + 7] = uy; c[o + 8] = vx; c[o + 9] = vy; c[o + 10] = theta0; c[o + 11] = sweep;
+    return new PackedArc(c, o, span);
+  }
+}
+
+/** Something that makes segments from their fields: packed (PackedSegmentWriter) or plain (`plainSegments`). */
+export interface SegmentSink {
+  line(x0: number, y0: number, x1: number, y1: number, span: SourceSpan): Segment;
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, span: SourceSpan): Segment;
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, span: SourceSpan): Segment;
+  arc(
+    x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
+    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, span: SourceSpan,
+  ): Segment;
+}
+
+/** Plain segment objects, for the few segments made outside a drawing's bulk (fixes, small shapes). */
+export const plainSegments: SegmentSink = {
+  line: (x0, y0, x1, y1, span) => ({ kind: 'line', x0, y0, x1, y1, span }),
+  quad: (x0, y0, x1, y1, x2, y2, span) => ({ kind: 'quad', x0, y0, x1, y1, x2, y2, span }),
+  cubic: (x0, y0, x1, y1, x2, y2, x3, y3, span) => ({ kind: 'cubic', x0, y0, x1, y1, x2, y2, x3, y3, span }),
+  arc: (x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span) => ({ kind: 'arc', x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span }),
+};
+
+/** Largest chunk of a PackedSegmentWriter: 512 KB. */
+const MAX_CHUNK = 1 << 16;

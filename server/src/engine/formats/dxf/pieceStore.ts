@@ -4,7 +4,7 @@
  * then holds no object per piece or per segment while it is read and chained; the `Segment` objects of
  * the result are made once, in contour order and drawing direction (`appendSegments`).
  */
-import { makePackedSegment } from '../../model/packedSegment';
+import { makePackedSegment, type PackedSegmentWriter } from '../../model/packedSegment';
 import type { Segment, SourceSpan } from '../../types';
 import type { PointGroups } from './entities';
 import type { Affine } from './transform';
@@ -281,21 +281,20 @@ export class PieceStore {
     out[k + 1] = this.coordinates[at + 1];
   }
 
-  /** A block that can hold every piece's coordinates once, for `appendSegments`. */
-  newCoordinateBlock(): CoordinateBlock {
-    return { c: new Float64Array(this.coordinateCount), n: 0 };
+  /** Number of coordinates of all segments stored (the size of their packed copy). */
+  getCoordinateCount(): number {
+    return this.coordinateCount;
   }
 
   /**
    * Appends the piece's segments to `out`, walked backwards when `reversed` (each segment reversed, an
-   * arc by θ0' = θ0 + sweep, sweep' = −sweep). Their coordinates are copied in drawing order into
-   * `block`, which they then read (packedSegment.ts): each piece may be appended once per block. A
-   * segment whose span is the piece's span gets `pieceSpan`; consecutive segments with equal spans
-   * share one object.
+   * arc by θ0' = θ0 + sweep, sweep' = −sweep), written in drawing order to `writer`, which they then
+   * read (packedSegment.ts). A segment whose span is the piece's span gets `pieceSpan`; consecutive
+   * segments with equal spans share one object.
    */
-  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[], block: CoordinateBlock): void {
+  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[], writer: PackedSegmentWriter): void {
     const first = this.getFirstSegment(i), end = this.getSegmentEnd(i);
-    const c = this.coordinates, sg = this.segments, d = block.c;
+    const c = this.coordinates, sg = this.segments;
     let last: SourceSpan = pieceSpan;
     for (let k = 0; k < end - first; k++) {
       const r = SEGMENT_WIDTH * (reversed ? end - 1 - k : first + k);
@@ -303,9 +302,8 @@ export class PieceStore {
       if (spanStart !== last.start || spanEnd !== last.end) {
         last = spanStart === pieceSpan.start && spanEnd === pieceSpan.end ? pieceSpan : { start: spanStart, end: spanEnd };
       }
-      const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], n = COORDINATES[kind], o = block.n;
-      if (o + n > d.length) throw new Error('appendSegments: a piece was appended twice to one block');
-      block.n += n;
+      const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], n = COORDINATES[kind];
+      const o = writer.reserve(n), d = writer.chunk;
       if (!reversed) {
         for (let j = 0; j < n; j++) d[o + j] = c[a + j];
       } else if (kind === ARC) {
@@ -320,10 +318,4 @@ export class PieceStore {
       out.push(makePackedSegment(KIND_NAMES[kind], d, o, last));
     }
   }
-}
-
-/** Coordinates of segments in drawing order (see `PieceStore.appendSegments`); `n` are in use. */
-export interface CoordinateBlock {
-  readonly c: Float64Array;
-  n: number;
 }

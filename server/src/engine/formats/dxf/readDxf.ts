@@ -12,6 +12,7 @@
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
+import { PackedSegmentWriter } from '../../model/packedSegment';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -347,7 +348,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
   const contours: Contour[] = new Array<Contour>(closedCount + chainCount);
   /** The contour's segments as they are made; each contour gets a copy of exactly its length. */
   const segments: Segment[] = [];
-  const block = store.newCoordinateBlock();
+  const writer = new PackedSegmentWriter(store.getCoordinateCount());
   let nextClosed = 0, nextChain = 0;
   for (let index = 0; index < contours.length; index++) {
     segments.length = 0;
@@ -356,7 +357,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     if (nextClosed < closedCount && (nextChain === chainCount || store.getOrder(closedPieces[nextClosed]) <= chainOrder[nextChain])) {
       p = closedPieces[nextClosed++];
       span = store.getSpan(p, 0);
-      store.appendSegments(p, false, span, segments, block);
+      store.appendSegments(p, false, span, segments, writer);
       closed = true;
       startSpan = store.getSpanLike(p, 1, span);
       endSpan = store.getSpanLike(p, 2, span);
@@ -367,7 +368,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       span = store.getSpan(p, 0);
       for (let l = from; l < to; l++) {
         const i = open[links[l] >> 1];
-        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments, block);
+        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments, writer);
       }
       const last = open[links[to - 1] >> 1];
       startSpan = store.getSpanLike(p, (links[from] & 1) === 1 ? 2 : 1, span);

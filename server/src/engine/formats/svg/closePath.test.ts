@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Segment, TextEdit } from '../../types';
 import { getSegmentEnd } from '../../geometry/bounds';
+import { toPlainSegment } from '../../../../../test/support/shapes';
 import { parsePathData, type PathSubpath } from './pathData';
 
 // The fix's contract (REFERENCES §5.4, "move the last point onto the first and append Z"; the
@@ -20,7 +21,10 @@ function applyEdits(text: string, base: number, edits: readonly TextEdit[]): str
 
 /** Segment geometry without spans (spans shift when text before them changes). */
 function getGeometry(segments: readonly Segment[]): object[] {
-  return segments.map(({ span: _span, ...rest }) => rest);
+  return segments.map((s) => {
+    const { span: _span, ...rest } = toPlainSegment(s);
+    return rest;
+  });
 }
 
 function getSummary(s: PathSubpath): object {

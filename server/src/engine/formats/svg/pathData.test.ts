@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { Arc } from '../../types';
 import { getSegmentEnd } from '../../geometry/bounds';
 import { transformSegment, type Matrix } from '../../geometry/transform';
+import { toPlainSegment } from '../../../../../test/support/shapes';
 import { parsePathData } from './pathData';
 
 // Independent reference: the npm package svg-path-parser (a PEG grammar of SVG 1.1 path data) with
@@ -228,9 +229,9 @@ describe('parsePathData with a matrix', () => {
       expect(mapped.subpaths.length).toBe(plain.subpaths.length);
       mapped.subpaths.forEach((sub, i) => {
         const reference = plain.subpaths[i]!;
-        expect(sub.segments).toEqual(reference.segments.map((s) => transformSegment(s, m)));
+        expect(sub.segments.map(toPlainSegment)).toEqual(reference.segments.map((s) => transformSegment(s, m)));
         sub.segments.forEach((s, k) => {
-          for (const [key, value] of Object.entries(s)) {
+          for (const [key, value] of Object.entries(toPlainSegment(s))) {
             if (typeof value === 'number') expect(Object.is(value, (transformSegment(reference.segments[k]!, m) as unknown as Record<string, number>)[key])).toBe(true);
           }
         });

@@ -1,6 +1,7 @@
 import type { Fix, Segment, SourceSpan } from '../../types';
 import { arcFromSvgEndpoints, getSvgArcCentre, SVG_ARC, svgArcCentre } from '../../geometry/arc';
 import { isIdentityMatrix, type Matrix } from '../../geometry/transform';
+import { PackedSegmentWriter, plainSegments, type SegmentSink } from '../../model/packedSegment';
 import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
 
 /**
@@ -164,8 +165,13 @@ class PathDataParser {
   private lastKind = LINE;
   private readonly lastPoints = new Float64Array(6);
 
+  /** Where the drawn segments' coordinates go; its first chunk is sized at one coordinate per two
+   *  characters of path data (typical data needs less; more chunks come as needed). */
+  private readonly writer: PackedSegmentWriter;
+
   constructor(private readonly d: string, private readonly base: number, private readonly matrix: Matrix | null) {
     this.n = d.length;
+    this.writer = new PackedSegmentWriter(d.length >> 1);
   }
 
   run(): void {
@@ -466,7 +472,7 @@ class PathDataParser {
     }
     p[4] = x; p[5] = y;
     this.lastKind = kind;
-    const seg = this.matrix === null ? this.buildSegment(kind, x0, y0, span) : this.buildMappedSegment(kind, x0, y0, span, this.matrix);
+    const seg = this.matrix === null ? this.buildSegment(kind, x0, y0, span, this.writer) : this.buildMappedSegment(kind, x0, y0, span, this.matrix);
     let sub = this.sub;
     if (sub === null) {
       // First drawing command after a Z: a new subpath from the previous subpath's start.
@@ -492,58 +498,51 @@ class PathDataParser {
     this.lastY0 = y0;
   }
 
-  /** The segment of kind `kind` from (x0, y0) through lastPoints (and svgArcCentre for arcs), as read. */
-  private buildSegment(kind: number, x0: number, y0: number, span: SourceSpan): Segment {
+  /** The segment of kind `kind` from (x0, y0) through lastPoints (and svgArcCentre for arcs), as read, made by `sink`. */
+  private buildSegment(kind: number, x0: number, y0: number, span: SourceSpan, sink: SegmentSink): Segment {
     const p = this.lastPoints;
     switch (kind) {
       case QUAD:
-        return { kind: 'quad', x0, y0, x1: p[0]!, y1: p[1]!, x2: p[4]!, y2: p[5]!, span };
+        return sink.quad(x0, y0, p[0]!, p[1]!, p[4]!, p[5]!, span);
       case CUBIC:
-        return { kind: 'cubic', x0, y0, x1: p[0]!, y1: p[1]!, x2: p[2]!, y2: p[3]!, x3: p[4]!, y3: p[5]!, span };
+        return sink.cubic(x0, y0, p[0]!, p[1]!, p[2]!, p[3]!, p[4]!, p[5]!, span);
       case ARC: {
         const c = svgArcCentre;
-        return {
-          kind: 'arc', x0, y0, x1: p[4]!, y1: p[5]!, cx: c[0]!, cy: c[1]!, ux: c[2]!, uy: c[3]!, vx: c[4]!, vy: c[5]!,
-          theta0: c[6]!, sweep: c[7]!, span,
-        };
+        return sink.arc(x0, y0, p[4]!, p[5]!, c[0]!, c[1]!, c[2]!, c[3]!, c[4]!, c[5]!, c[6]!, c[7]!, span);
       }
       default:
-        return { kind: 'line', x0, y0, x1: p[4]!, y1: p[5]!, span };
+        return sink.line(x0, y0, p[4]!, p[5]!, span);
     }
   }
 
-  /** buildSegment's segment mapped by m, built once (the same arithmetic as transformSegment). */
+  /** buildSegment's segment mapped by m, made once by the writer (the same arithmetic as transformSegment). */
   private buildMappedSegment(kind: number, x0: number, y0: number, span: SourceSpan, m: Matrix): Segment {
     const [a, b, c, d, e, f] = m;
-    const p = this.lastPoints;
+    const p = this.lastPoints, w = this.writer;
     const mx0 = a * x0 + c * y0 + e, my0 = b * x0 + d * y0 + f;
     const mx = a * p[4]! + c * p[5]! + e, my = b * p[4]! + d * p[5]! + f;
     switch (kind) {
       case QUAD:
-        return {
-          kind: 'quad', x0: mx0, y0: my0,
-          x1: a * p[0]! + c * p[1]! + e, y1: b * p[0]! + d * p[1]! + f,
-          x2: mx, y2: my, span,
-        };
+        return w.quad(mx0, my0, a * p[0]! + c * p[1]! + e, b * p[0]! + d * p[1]! + f, mx, my, span);
       case CUBIC:
-        return {
-          kind: 'cubic', x0: mx0, y0: my0,
-          x1: a * p[0]! + c * p[1]! + e, y1: b * p[0]! + d * p[1]! + f,
-          x2: a * p[2]! + c * p[3]! + e, y2: b * p[2]! + d * p[3]! + f,
-          x3: mx, y3: my, span,
-        };
+        return w.cubic(
+          mx0, my0,
+          a * p[0]! + c * p[1]! + e, b * p[0]! + d * p[1]! + f,
+          a * p[2]! + c * p[3]! + e, b * p[2]! + d * p[3]! + f,
+          mx, my, span,
+        );
       case ARC: {
         const k = svgArcCentre;
-        return {
-          kind: 'arc', x0: mx0, y0: my0, x1: mx, y1: my,
-          cx: a * k[0]! + c * k[1]! + e, cy: b * k[0]! + d * k[1]! + f,
-          ux: a * k[2]! + c * k[3]!, uy: b * k[2]! + d * k[3]!,
-          vx: a * k[4]! + c * k[5]!, vy: b * k[4]! + d * k[5]!,
-          theta0: k[6]!, sweep: k[7]!, span,
-        };
+        return w.arc(
+          mx0, my0, mx, my,
+          a * k[0]! + c * k[1]! + e, b * k[0]! + d * k[1]! + f,
+          a * k[2]! + c * k[3]!, b * k[2]! + d * k[3]!,
+          a * k[4]! + c * k[5]!, b * k[4]! + d * k[5]!,
+          k[6]!, k[7]!, span,
+        );
       }
       default:
-        return { kind: 'line', x0: mx0, y0: my0, x1: mx, y1: my, span };
+        return w.line(mx0, my0, mx, my, span);
     }
   }
 
@@ -576,7 +575,7 @@ class PathDataParser {
       };
       const last = this.lastKind === ARC
         ? arcFromSvgEndpoints(this.lastX0, this.lastY0, group.args[0]!, group.args[1]!, group.args[2]!, group.args[3] === 1, group.args[4] === 1, this.lastPoints[4]!, this.lastPoints[5]!, this.span(this.lastStart, this.lastEnd))!
-        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.span(this.lastStart, this.lastEnd));
+        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.span(this.lastStart, this.lastEnd), plainSegments);
       result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, last, group, next);
     }
     this.subpaths.push(result);

@@ -4,6 +4,7 @@ import {
 import type {
   AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, UnitsInfo,
 } from '../../types';
+import { withSpan } from '../../model/packedSegment';
 import { parsePathData } from './pathData';
 import { getPositionedValue, scanDocument, type ScannedDocument, type SvgElement } from './scan';
 import { BASIC_SHAPES, getShapeOutline, readLength, type LengthContext } from './shapes';
@@ -408,7 +409,7 @@ class SvgReader {
     if (parsed.subpaths.length === 0) return;
     this.getTransform(el);
     for (const sub of parsed.subpaths) {
-      const segments = offsets ? sub.segments.map((s) => ({ ...s, span: mapSpan(s.span) })) : sub.segments;
+      const segments = offsets ? sub.segments.map((s) => withSpan(s, mapSpan(s.span))) : sub.segments;
       const closeFix = sub.closeFix && offsets
         ? { title: sub.closeFix.title, edits: sub.closeFix.edits.map((e) => ({ span: mapSpan(e.span), newText: e.newText })) }
         : sub.closeFix;

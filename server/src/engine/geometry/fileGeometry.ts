@@ -30,7 +30,7 @@ export function getFileGeometry(
   checkCancelled: () => void,
   isCancelled?: () => boolean,
 ): FileGeometry {
-  const intersections = findIntersections(contours.map((c) => c.contour), isCancelled ? { isCancelled } : {});
+  const intersections = findIntersections(contours.map((c) => c.contour), { reuseBuffers: true, ...(isCancelled ? { isCancelled } : {}) });
   checkCancelled();
   const nesting = getNesting(contours);
   checkCancelled();

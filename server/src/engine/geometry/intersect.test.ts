@@ -415,3 +415,30 @@ describe('intersection points against paper.js (npm `paper`)', () => {
     });
   }
 });
+
+describe('piece buffers kept from one file-wide search for the next (reuseBuffers)', () => {
+  /** A star polygon with n spikes, some edges of each crossing another, plus an arc drawn twice. */
+  const drawing = (n: number, shift: number): Contour[] => {
+    const pts: [number, number][] = [];
+    for (let k = 0; k < n; k++) {
+      const a = (2 * Math.PI * k) / n;
+      const r = k % 2 ? 40 : 100 + (k % 7) * 3;
+      pts.push([shift + r * Math.cos(a), r * Math.sin(a)]);
+    }
+    pts.splice(5, 0, [shift - 50, 0]); // one edge across the star
+    const twice = arc(shift, 0, 60, 0, 0, 60, 0, Math.PI);
+    return [polygon(pts), contourFromSegments([twice, twice], false, [shift + 60, 0])];
+  };
+
+  it('gives a search after a larger and after a smaller one the result of a search with fresh buffers (the spare is zeroed as a fresh buffer is; reference: the same search without reuse)', () => {
+    const small = drawing(600, 0), large = drawing(2000, 7);
+    const fresh = findIntersections(small);
+    expect(fresh.intersections.length).toBeGreaterThan(0);
+    expect(fresh.overlaps.length).toBeGreaterThan(0);
+    // 2000 spikes' pieces are within 4 times the 600's, so the second search takes the first one's buffers.
+    findIntersections(large, { reuseBuffers: true });
+    expect(findIntersections(small, { reuseBuffers: true })).toEqual(fresh);
+    expect(findIntersections(small, { reuseBuffers: true })).toEqual(fresh);
+    expect(findIntersections(large, { reuseBuffers: true })).toEqual(findIntersections(large));
+  });
+});

@@ -28,7 +28,7 @@
 import { orient2d } from 'robust-predicates';
 import type { Arc, Contour, Cubic, Quad, Segment, SourceSpan } from '../types';
 import {
-  buildPieces, getPieceEndProbe, getPiecePoint, getPieceTangent,
+  buildPieces, releasePieces, getPieceEndProbe, getPiecePoint, getPieceTangent,
   KIND_ARC, KIND_CUBIC, KIND_LINE, KIND_QUAD, STRIDE,
   type PieceChain, type Pieces,
 } from './intersectPieces';
@@ -103,6 +103,9 @@ export interface IntersectOptions {
   readonly withinContours?: boolean;
   /** Polled during the search (piecePairs.ts, then every NARROW_POLL_EVERY candidate pairs); when it returns true the search stops early. */
   readonly isCancelled?: () => boolean;
+  /** Take the piece buffers the last search with this option left, and leave them for the next
+   *  (intersectPieces.ts `spare`): for the one file-wide search of each analysis. */
+  readonly reuseBuffers?: boolean;
 }
 
 /** +1 when a→b→c turns counter-clockwise in y-up axes, −1 clockwise, 0 collinear; exact. */
@@ -733,14 +736,22 @@ function getSize(P: Pieces): number {
 export function findIntersections(contours: readonly Contour[], options: IntersectOptions = {}): IntersectionResult {
   const across = options.acrossContours ?? true;
   const within = options.withinContours ?? true;
-  const provisional = buildPieces(contours, 0);
+  const reuse = options.reuseBuffers ?? false;
+  const provisional = buildPieces(contours, 0, reuse);
   const size = getSize(provisional);
   const eps = Math.max(RELATIVE_POINT_TOLERANCE * size, Number.MIN_VALUE);
   // Rebuild only when some segment or closing gap is within eps (it is then dropped as a point).
-  const P = provisional.minKeptExtent > eps ? provisional : buildPieces(contours, eps);
+  let P = provisional;
+  if (provisional.minKeptExtent <= eps) {
+    if (reuse) releasePieces(provisional);
+    P = buildPieces(contours, eps, reuse);
+  }
   const col = new Collector(P, eps);
   const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps };
-  if (P.count < 2) return result;
+  if (P.count < 2) {
+    if (reuse) releasePieces(P);
+    return result;
+  }
   const buf = P.buf;
   const keep = (i: number, j: number): boolean => {
     const ci = P.contourOf[i]!, cj = P.contourOf[j]!;
@@ -794,6 +805,7 @@ export function findIntersections(contours: readonly Contour[], options: Interse
   result.intersections.sort((p, q) => p.a.contour - q.a.contour || p.a.segment - q.a.segment || p.a.t - q.a.t);
   result.overlaps = mergeOverlaps(P, contours, col.overlaps);
   result.unresolved = col.unresolved.map((u) => ({ x: u.x, y: u.y, a: toContourPlace(P, contours, u.pa, 0.5), b: toContourPlace(P, contours, u.pb, 0.5) }));
+  if (reuse) releasePieces(P);
   return result;
 }
 

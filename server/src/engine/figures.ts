@@ -26,8 +26,9 @@ export function toFigures(result: AnalysisResult): AnalysisFigures {
       const { segments, ...outline } = contour;
       const segmentSpans = new Int32Array(2 * segments.length);
       segments.forEach((s, i) => {
-        segmentSpans[2 * i] = s.span.start;
-        segmentSpans[2 * i + 1] = s.span.end;
+        const span = s.span; // a packed segment makes its span on each read
+        segmentSpans[2 * i] = span.start;
+        segmentSpans[2 * i + 1] = span.end;
       });
       return { ...rest, contour: { ...outline, segmentSpans } };
     }),

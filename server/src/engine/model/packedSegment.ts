@@ -2,7 +2,8 @@
  * Segments that read their coordinates from a shared Float64Array. A segment object with its numbers
  * as fields holds each number as a heap box of its own (V8 keeps no double unboxed in an object), so a
  * line is 5 heap objects and an arc 13; a million-segment drawing is then hundreds of megabytes that
- * every collection walks. These hold the array, an offset and the span: one small object a segment,
+ * every collection walks. These hold the array, an offset and the span's two offsets: one small
+ * object a segment (its `span` is made when asked for, a new object each time),
  * the numbers in one block. They satisfy the `Segment` interfaces field for field (getters), so no
  * reader of segments can tell them apart from plain ones, except that they are not plain data: a
  * spread or `Object.keys` sees only `span`. Nothing in the engine copies segments that way; tests
@@ -14,7 +15,8 @@
 import type { Arc, Cubic, Line, Quad, Segment, SourceSpan } from '../types';
 
 abstract class PackedSegment {
-  constructor(readonly c: Float64Array, readonly o: number, readonly span: SourceSpan) {}
+  constructor(readonly c: Float64Array, readonly o: number, private readonly spanStart: number, private readonly spanEnd: number) {}
+  get span(): SourceSpan { return { start: this.spanStart, end: this.spanEnd }; }
   get x0(): number { return this.c[this.o]!; }
   get y0(): number { return this.c[this.o + 1]!; }
   get x1(): number { return this.c[this.o + 2]!; }
@@ -51,19 +53,20 @@ class PackedArc extends PackedSegment implements Arc {
   get sweep(): number { return this.c[this.o + 11]!; }
 }
 
-/** The segment of `kind` whose coordinates are at c[o…] (see the layout above); c must not change after. */
-export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: number, span: SourceSpan): Segment {
+/** The segment of `kind` whose coordinates are at c[o…] (see the layout above), with the span [spanStart,
+ *  spanEnd); c must not change after. */
+export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: number, spanStart: number, spanEnd: number): Segment {
   switch (kind) {
-    case 'line': return new PackedLine(c, o, span);
-    case 'quad': return new PackedQuad(c, o, span);
-    case 'cubic': return new PackedCubic(c, o, span);
-    case 'arc': return new PackedArc(c, o, span);
+    case 'line': return new PackedLine(c, o, spanStart, spanEnd);
+    case 'quad': return new PackedQuad(c, o, spanStart, spanEnd);
+    case 'cubic': return new PackedCubic(c, o, spanStart, spanEnd);
+    case 'arc': return new PackedArc(c, o, spanStart, spanEnd);
   }
 }
 
 /** The same segment with another span (a packed one shares its coordinates). */
 export function withSpan(s: Segment, span: SourceSpan): Segment {
-  return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span) : { ...s, span };
+  return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span.start, span.end) : { ...s, span };
 }
 
 /**
@@ -94,19 +97,19 @@ export class PackedSegmentWriter implements SegmentSink {
   line(x0: number, y0: number, x1: number, y1: number, span: SourceSpan): Segment {
     const o = this.reserve(4), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1;
-    return new PackedLine(c, o, span);
+    return new PackedLine(c, o, span.start, span.end);
   }
 
   quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, span: SourceSpan): Segment {
     const o = this.reserve(6), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2;
-    return new PackedQuad(c, o, span);
+    return new PackedQuad(c, o, span.start, span.end);
   }
 
   cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, span: SourceSpan): Segment {
     const o = this.reserve(8), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2; c[o + 6] = x3; c[o + 7] = y3;
-    return new PackedCubic(c, o, span);
+    return new PackedCubic(c, o, span.start, span.end);
   }
 
   arc(
@@ -116,7 +119,7 @@ export class PackedSegmentWriter implements SegmentSink {
     const o = this.reserve(12), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = cx; c[o + 5] = cy;
     c[o + 6] = ux; c[o + 7] = uy; c[o + 8] = vx; c[o + 9] = vy; c[o + 10] = theta0; c[o + 11] = sweep;
-    return new PackedArc(c, o, span);
+    return new PackedArc(c, o, span.start, span.end);
   }
 }
 

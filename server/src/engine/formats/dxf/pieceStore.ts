@@ -289,19 +289,13 @@ export class PieceStore {
   /**
    * Appends the piece's segments to `out`, walked backwards when `reversed` (each segment reversed, an
    * arc by θ0' = θ0 + sweep, sweep' = −sweep), written in drawing order to `writer`, which they then
-   * read (packedSegment.ts). A segment whose span is the piece's span gets `pieceSpan`; consecutive
-   * segments with equal spans share one object.
+   * read (packedSegment.ts).
    */
-  appendSegments(i: number, reversed: boolean, pieceSpan: SourceSpan, out: Segment[], writer: PackedSegmentWriter): void {
+  appendSegments(i: number, reversed: boolean, out: Segment[], writer: PackedSegmentWriter): void {
     const first = this.getFirstSegment(i), end = this.getSegmentEnd(i);
     const c = this.coordinates, sg = this.segments;
-    let last: SourceSpan = pieceSpan;
     for (let k = 0; k < end - first; k++) {
       const r = SEGMENT_WIDTH * (reversed ? end - 1 - k : first + k);
-      const spanStart = sg[r + SPAN_START], spanEnd = sg[r + SPAN_END];
-      if (spanStart !== last.start || spanEnd !== last.end) {
-        last = spanStart === pieceSpan.start && spanEnd === pieceSpan.end ? pieceSpan : { start: spanStart, end: spanEnd };
-      }
       const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], n = COORDINATES[kind];
       const o = writer.reserve(n), d = writer.chunk;
       if (!reversed) {
@@ -315,7 +309,7 @@ export class PieceStore {
         // Control points in reverse order.
         for (let j = 0; j < n; j += 2) { d[o + j] = c[a + n - 2 - j]; d[o + j + 1] = c[a + n - 1 - j]; }
       }
-      out.push(makePackedSegment(KIND_NAMES[kind], d, o, last));
+      out.push(makePackedSegment(KIND_NAMES[kind], d, o, sg[r + SPAN_START], sg[r + SPAN_END]));
     }
   }
 }

@@ -357,7 +357,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     if (nextClosed < closedCount && (nextChain === chainCount || store.getOrder(closedPieces[nextClosed]) <= chainOrder[nextChain])) {
       p = closedPieces[nextClosed++];
       span = store.getSpan(p, 0);
-      store.appendSegments(p, false, span, segments, writer);
+      store.appendSegments(p, false, segments, writer);
       closed = true;
       startSpan = store.getSpanLike(p, 1, span);
       endSpan = store.getSpanLike(p, 2, span);
@@ -366,10 +366,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       const from = chained.starts[k], to = chained.starts[k + 1];
       p = open[links[from] >> 1];
       span = store.getSpan(p, 0);
-      for (let l = from; l < to; l++) {
-        const i = open[links[l] >> 1];
-        store.appendSegments(i, (links[l] & 1) === 1, l === from ? span : store.getSpan(i, 0), segments, writer);
-      }
+      for (let l = from; l < to; l++) store.appendSegments(open[links[l] >> 1], (links[l] & 1) === 1, segments, writer);
       const last = open[links[to - 1] >> 1];
       startSpan = store.getSpanLike(p, (links[from] & 1) === 1 ? 2 : 1, span);
       endSpan = store.getSpanLike(last, (links[to - 1] & 1) === 1 ? 1 : 2, span);

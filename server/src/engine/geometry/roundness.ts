@@ -868,11 +868,13 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   }
   const outline = outlineFromPolyline(poly, contour, flatteningMm, reduced);
   const searchDelta = outline.deviationMm;
-  const lic = inscribedCircleOf(outline);
+  // A reduced outline is known to ±δ only: searching to a finer gap than δ would not tighten the bound.
+  const tolerance = reduced ? Math.max(ROUNDNESS_RELATIVE_TOLERANCE * size, searchDelta) : undefined;
+  const lic = inscribedCircleOf(outline, tolerance);
   const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + searchDelta);
   let minZone: MeasuredCircle = undef('the contour crosses itself, so it has no inside to zone');
   if (!selfCrossing) {
-    const mz = minimumZoneOf(outline, mec);
+    const mz = minimumZoneOf(outline, mec, tolerance);
     minZone = mz.onSearchRim
       ? undef('not round: the shape is elongated, so the best centre lies on the rim of its enclosing circle and no finite minimum zone exists')
       : toCircle(mz.widthMm, mz.centreX, mz.centreY, mz.errorBoundMm + 2 * searchDelta);

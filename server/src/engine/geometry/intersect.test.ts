@@ -430,8 +430,10 @@ describe('piece buffers kept from one file-wide search for the next (reuseBuffer
     return [polygon(pts), contourFromSegments([twice, twice], false, [shift + 60, 0])];
   };
 
-  it('gives a search after a larger and after a smaller one the result of a search with fresh buffers (the spare is zeroed as a fresh buffer is; reference: the same search without reuse)', () => {
-    const small = drawing(600, 0), large = drawing(2000, 7);
+  it('gives a search after a larger and after a smaller one the result of a search with fresh buffers (the spare is not cleared: pieces are written whole; reference: the same search without reuse)', () => {
+    // The larger drawing starts with curves, so the smaller one's line pieces land where curve fields were.
+    const curls = contourFromSegments(Array.from({ length: 300 }, (_, k) => cubic(k, 0, k + 0.2, 3, k + 0.8, -3, k + 1, 0)), false);
+    const small = drawing(600, 0), large = [curls, ...drawing(2000, 7)];
     const fresh = findIntersections(small);
     expect(fresh.intersections.length).toBeGreaterThan(0);
     expect(fresh.overlaps.length).toBeGreaterThan(0);

@@ -89,15 +89,14 @@ class PieceWriter {
  */
 let spare: { buf: Float64Array; contourOf: Int32Array } | null = null;
 
-/** The spare buffers when they hold `capacity` pieces and are not 4 times more, zeroed up to it as
- *  fresh ones are; else null (a spare too large is dropped). */
+/** The spare buffers when they hold `capacity` pieces and are not 4 times more; else null (a spare
+ *  too large is dropped). They are not cleared: every piece is written whole for its kind (the add*
+ *  functions below write every field the layout gives it, `next` its contour), and what reads a piece
+ *  reads only those fields. */
 function takeSpare(capacity: number): { buf: Float64Array; contourOf: Int32Array } | null {
   const s = spare;
   spare = null;
-  if (!s || s.contourOf.length < capacity || s.contourOf.length > 4 * capacity + 1024) return null;
-  s.buf.fill(0, 0, STRIDE * capacity);
-  s.contourOf.fill(0, 0, capacity);
-  return s;
+  return s && s.contourOf.length >= capacity && s.contourOf.length <= 4 * capacity + 1024 ? s : null;
 }
 
 /** Hands the buffers of pieces no longer used to the next `buildPieces(…, reuse = true)`. */

@@ -32,7 +32,7 @@ import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, 
 import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
 import { getVectorLength } from './length';
-import { simplifyClosedPolyline } from './simplify';
+import { distToSegment, simplifyClosedPolyline } from './simplify';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -276,14 +276,6 @@ function pieceBox(p: SearchPiece): [number, number, number, number] {
 
 /** √(x² + y²); Math.hypot guards against overflow, which mm-sized outlines never reach, at several times the cost. */
 const len = (x: number, y: number) => Math.sqrt(x * x + y * y);
-
-function distToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
-  const dx = bx - ax, dy = by - ay;
-  const l2 = dx * dx + dy * dy;
-  let t = l2 === 0 ? 0 : ((x - ax) * dx + (y - ay) * dy) / l2;
-  t = t < 0 ? 0 : t > 1 ? 1 : t;
-  return len(x - ax - t * dx, y - ay - t * dy);
-}
 
 function distToPiece(p: SearchPiece, x: number, y: number): number {
   const c = p.circle;

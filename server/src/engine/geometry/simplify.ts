@@ -33,7 +33,8 @@ export interface Simplified {
   readonly deviationMm: number;
 }
 
-function distToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
+/** Distance from (x, y) to the segment A–B (also the searches' in roundness.ts). */
+export function distToSegment(x: number, y: number, ax: number, ay: number, bx: number, by: number): number {
   const dx = bx - ax, dy = by - ay;
   const l2 = dx * dx + dy * dy;
   let t = l2 === 0 ? 0 : ((x - ax) * dx + (y - ay) * dy) / l2;

@@ -1,8 +1,8 @@
 /**
  * The pieces of a DXF drawing as flat records: segment coordinates in one growing Float64Array, spans,
  * kinds and piece facts in Int32Arrays, names (entity types, layers) once each. A million-entity file
- * then holds no object per piece or per segment while it is read and chained; the `Segment` objects of
- * the result are made once, in contour order and drawing direction (`appendSegments`).
+ * then holds no object per piece or per segment while it is read and chained; the result's segments
+ * are written once, packed, in contour order and drawing direction (`appendSegments`).
  */
 import { makePackedSegment, type PackedSegmentWriter } from '../../model/packedSegment';
 import type { Segment, SourceSpan } from '../../types';

@@ -374,14 +374,13 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
       closeFix = fixes.get(k);
     }
     const own = segments.slice();
-    const c: Contour = {
+    contours[index] = {
       index, segments: own, closed,
       startX: own[0].x0, startY: own[0].y0,
       span, startSpan, endSpan, elementSpan: span,
       element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
       closeFix,
     };
-    contours[index] = c;
   }
   return contours;
 }

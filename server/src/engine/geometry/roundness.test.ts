@@ -104,6 +104,18 @@ describe('finely divided outlines (more search pieces than MAX_ROUNDNESS_PIECES:
     expect(mz.errorBoundMm).toBeLessThan(1e-5 * r0);
   });
 
+  it('gives a stadium a = 20, r = 10 whose straight sides are 3000 short lines each ρ = r = 10 within the stated bound, its two arcs kept exact (REFERENCES.md §2.5)', () => {
+    const side = (x0: number, x1: number, y: number) => Array.from({ length: 3000 }, (_, k) => line(x0 + ((x1 - x0) * k) / 3000, y, x0 + ((x1 - x0) * (k + 1)) / 3000, y));
+    const c = contourFromSegments([
+      ...side(0, 20, -10), arc(20, 0, 10, 0, 0, 10, -Math.PI / 2, Math.PI),
+      ...side(20, 0, 10), arc(0, 0, 10, 0, 0, 10, Math.PI / 2, Math.PI),
+    ], true, [0, -10]);
+    const rho = figuresOf(c).inradius.value!;
+    expect(Math.abs(rho.valueMm - 10)).toBeLessThanOrEqual(rho.errorBoundMm + 1e-12);
+    // Collinear chords thin to their ends with no deviation, and the arcs stay arcs: the bound is the search's.
+    expect(rho.errorBoundMm).toBeLessThan(1e-6);
+  });
+
   it('gives a 100 × 60 rectangle with corners of radius 10, each drawn as 2000 lines, ρ = 30 and R = √(40² + 20²) + 10 within the stated bounds (elementary geometry)', () => {
     const pts: [number, number][] = [];
     const corners: [number, number, number][] = [[40, 20, 0], [-40, 20, Math.PI / 2], [-40, -20, Math.PI], [40, -20, 1.5 * Math.PI]];

@@ -97,15 +97,12 @@ describe('simplifyClosedPolyline', () => {
     expect(simplifyClosedPolyline(loop.xs, loop.ys, Int32Array.from([0, 1, 2, 3, 4, 5]), Uint8Array.from([1, 1, 1, 1, 0, 0]), 3)).toBeNull();
   });
 
-  it('gives up at the work cap on a chain whose splits are all lopsided (edges growing by 30 % and turning a little: each farthest vertex is next to a run end)', () => {
+  it('gives up at the work cap: a 1000-gon thinned to 100 needs about log₂ 100 distance evaluations per vertex, so a cap of 2 stops it and the default does not', () => {
     const n = 1000;
-    const xs = new Float64Array(n), ys = new Float64Array(n);
-    let x = 0, y = 0, heading = 0, step = 1;
-    for (let i = 0; i < n; i++) {
-      xs[i] = x; ys[i] = y;
-      x += step * Math.cos(heading); y += step * Math.sin(heading);
-      heading += 1e-3; step *= 1.3;
-    }
-    expect(simplifyClosedPolyline(xs, ys, Int32Array.from({ length: n }, (_, i) => i), new Uint8Array(n), 500)).toBeNull();
+    const xs = Float64Array.from({ length: n }, (_, i) => Math.cos((2 * Math.PI * i) / n));
+    const ys = Float64Array.from({ length: n }, (_, i) => Math.sin((2 * Math.PI * i) / n));
+    const order = Int32Array.from({ length: n }, (_, i) => i);
+    expect(simplifyClosedPolyline(xs, ys, order, new Uint8Array(n), 100, 2)).toBeNull();
+    expect(simplifyClosedPolyline(xs, ys, order, new Uint8Array(n), 100)?.kept).toBe(100);
   });
 });

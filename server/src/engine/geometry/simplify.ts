@@ -47,10 +47,12 @@ export function distToSegment(x: number, y: number, ax: number, ay: number, bx: 
  * Keeps at most `maxKept` of the closed polyline's vertices `order` (indices into xs, ys, in cyclic
  * order; the loop closes from the last back to the first), always keeping those with `fixed[k]`
  * (aligned with `order`). With no fixed entry, the first and the vertex farthest from it are fixed.
- * Null when the fixed ones alone exceed the budget, or the work cap is reached.
+ * Null when the fixed ones alone exceed the budget, or the work cap (`workPerVertex` distance
+ * evaluations per vertex) is reached.
  */
 export function simplifyClosedPolyline(
   xs: Float64Array, ys: Float64Array, order: Int32Array, fixed: Uint8Array, maxKept: number,
+  workPerVertex = SIMPLIFY_WORK_PER_VERTEX,
 ): Simplified | null {
   const m = order.length;
   const isFixed = Uint8Array.from(fixed);
@@ -89,7 +91,7 @@ export function simplifyClosedPolyline(
   for (let p = 0; p <= m; p++) if (pinned[p]) { kept[p] = 1; count += p < m ? 1 : 0; }
   const heap = new RunHeap();
   let work = 0;
-  const workCap = SIMPLIFY_WORK_PER_VERTEX * m;
+  const workCap = workPerVertex * m;
   const push = (lo: number, hi: number, cap: number): boolean => {
     if (hi - lo < 2) return true;
     // The farthest vertex by squared distance to the chord (its root taken once).
@@ -113,7 +115,15 @@ export function simplifyClosedPolyline(
     if (!push(a, b, Infinity)) return null;
     a = b;
   }
-  for (let budget = maxKept - fixedCount; budget > 0 && heap.size > 0; budget--) {
+  // A run whose farthest vertex lies on its chord to rounding (1e-12 of the loop's size) gains nothing
+  // from a split, nor does any run after it, as keys only fall: collinear runs thin to their ends.
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let p = 0; p < m; p++) {
+    minX = Math.min(minX, px[p]!); maxX = Math.max(maxX, px[p]!);
+    minY = Math.min(minY, py[p]!); maxY = Math.max(maxY, py[p]!);
+  }
+  const negligible = 1e-12 * Math.hypot(maxX - minX, maxY - minY);
+  for (let budget = maxKept - fixedCount; budget > 0 && heap.size > 0 && heap.peekValue() > negligible; budget--) {
     const top = heap.pop();
     kept[top.split] = 1;
     count++;
@@ -153,6 +163,11 @@ class RunHeap {
       i = parent;
     }
     this.set(i, lo, hi, split, value);
+  }
+
+  /** The largest value in the heap (which must not be empty). */
+  peekValue(): number {
+    return this.value[0]!;
   }
 
   /** Removes the run with the largest value; the returned object is reused by the next call. */

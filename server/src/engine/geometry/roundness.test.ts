@@ -5,7 +5,7 @@ import { measureContour } from './measure';
 import { getContourPolyline, getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
 import { findSelfIntersections } from './intersect';
-import { getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea } from './roundness';
+import { buildChordTree, getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea, type SearchPiece } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
 /** Roundness and hull of a contour, told whether it crosses itself by the intersection search. */
@@ -386,5 +386,51 @@ describe('cell bounds close plateaus and ridges (linear and concave-quadratic pr
       const [big, small] = r1 > r2 ? [r1, r2] : [r2, r1];
       gridCheck(contoursFromPathData(`M -8 0 A ${small} ${small} 0 1 0 8 0 A ${big} ${big} 0 1 1 -8 0 Z`)[0]!);
     }), { seed: 17, numRuns: 10 });
+  });
+});
+
+describe('chord tree (the searches\' nearest and farthest pieces)', () => {
+  /** Brute-force distance from (x, y) to the segment A–B (independent of the module's own). */
+  const toSegment = (x: number, y: number, ax: number, ay: number, bx: number, by: number) => {
+    const dx = bx - ax, dy = by - ay, l2 = dx * dx + dy * dy;
+    const t = l2 === 0 ? 0 : Math.max(0, Math.min(1, ((x - ax) * dx + (y - ay) * dy) / l2));
+    return Math.hypot(x - ax - t * dx, y - ay - t * dy);
+  };
+
+  it('holds every point of every run within its node\'s ε of the node\'s chord: a wavy loop of lines and arcs of up to a quarter turn, each sampled at 65 points (the strip-tree invariant, Ballard 1981; fast-check, seed 23)', () => {
+    const piecesArb = fc.array(fc.record({
+      turn: fc.double({ min: 0.001, max: Math.PI / 2, noNaN: true }),
+      r: fc.double({ min: 0.1, max: 50, noNaN: true }),
+      arc: fc.boolean(),
+    }), { minLength: 1, maxLength: 120 });
+    fc.assert(fc.property(piecesArb, (specs) => {
+      // Walk a path: each piece an arc of radius r turning by `turn`, or the chord of that arc.
+      const pieces: SearchPiece[] = [];
+      let x = 0, y = 0, heading = 0;
+      for (const { turn, r, arc: isArc } of specs) {
+        const cx = x - r * Math.sin(heading), cy = y + r * Math.cos(heading);
+        const a0 = Math.atan2(y - cy, x - cx), a1 = a0 + turn;
+        const bx = cx + r * Math.cos(a1), by = cy + r * Math.sin(a1);
+        pieces.push({ ax: x, ay: y, bx, by, circle: isArc ? { cx, cy, r, ccw: true, span: [x, y, bx, by] } : null });
+        x = bx; y = by; heading += turn;
+      }
+      const tree = buildChordTree(pieces);
+      for (let k = 0; k < tree.lo.length; k++) {
+        if (tree.lo[k]! < 0) continue;
+        for (let i = tree.lo[k]!; i < tree.hi[k]!; i++) {
+          const p = pieces[i]!, c = p.circle;
+          for (let s = 0; s <= 64; s++) {
+            let px: number, py: number;
+            if (c) {
+              const a0 = Math.atan2(p.ay - c.cy, p.ax - c.cx), sweep = specs[i]!.turn, a = a0 + (sweep * s) / 64;
+              px = c.cx + c.r * Math.cos(a); py = c.cy + c.r * Math.sin(a);
+            } else {
+              px = p.ax + ((p.bx - p.ax) * s) / 64; py = p.ay + ((p.by - p.ay) * s) / 64;
+            }
+            expect(toSegment(px, py, tree.ax[k]!, tree.ay[k]!, tree.bx[k]!, tree.by[k]!)).toBeLessThanOrEqual(tree.eps[k]! * (1 + 1e-12) + 1e-12);
+          }
+        }
+      }
+    }), { seed: 23, numRuns: 60 });
   });
 });

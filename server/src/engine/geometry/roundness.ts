@@ -46,12 +46,12 @@ export const MAX_ROUNDNESS_CELLS = 2000;
  *  edges it meets: quadratic for outlines that wind many times). */
 export const MAX_WINDING_INTEGRAL_VERTICES = 20000;
 /** Most search pieces (lines, chords of flattened curves, arcs of circles) for the inradius and
- *  minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS cells queries the piece index, but near
- *  a medial axis many pieces are almost equally far, so a cell still visits a share of them growing
- *  with the piece count. A contour with more has its chords reduced to this many (simplify.ts), and
- *  the distance that moves them joins the stated error bounds (a tessellated circle of radius R needs
- *  about 4R(1 − cos(π/2000)) ≈ 5e-6·R); only when the reduction's work cap is reached are those
- *  figures undefined with the reason. */
+ *  minimum-zone searches. Each of their ≤ MAX_ROUNDNESS_CELLS cells finds its nearest and farthest
+ *  pieces in a chord tree, but near a medial axis many pieces are almost equally far, so a cell still
+ *  visits a share of them growing with the piece count. A contour with more has its chords reduced to
+ *  this many (simplify.ts), and the distance that moves them joins the stated error bounds (a
+ *  tessellated circle of radius R needs about 4R(1 − cos(π/2000)) ≈ 5e-6·R); only when the
+ *  reduction's work cap is reached are those figures undefined with the reason. */
 export const MAX_ROUNDNESS_PIECES = 2000;
 
 type Pt = readonly [number, number];
@@ -122,7 +122,7 @@ export function getSmallestEnclosingCircle(points: readonly Pt[]): Circle {
  * to B, plus the end points A and B themselves. Circle pieces come from monotone arc pieces, so their
  * sector is at most a quarter turn; `ccw` says whether A → B turns counter-clockwise (y-up).
  */
-interface SearchPiece {
+export interface SearchPiece {
   readonly ax: number; readonly ay: number; readonly bx: number; readonly by: number;
   readonly circle: {
     readonly cx: number; readonly cy: number; readonly r: number; readonly ccw: boolean;
@@ -482,43 +482,101 @@ function maxOfMinLinear(gs: readonly (readonly number[])[], x0: number, y0: numb
 
 /** How many of the nearest pieces, and of the farthest, feed the linear-programme bound of a cell. */
 const BOUND_NEAR = 3, BOUND_FAR = 2;
-/** Below this many pieces a scan is cheaper than the index. */
+/** Below this many pieces a scan is cheaper than the index (for the inside test). */
 const SCAN_PIECES = 48;
-/** Pieces per run of the farthest-distance scan. */
-const FARTHEST_RUN = 32;
+/** Most pieces in a leaf of the chord tree. */
+const CHORD_LEAF = 4;
 
 /**
- * Distance queries on an outline, from a flatbush index of its pieces (or a scan when there are
- * few), with the same results as scanning every piece:
- * - nearest: the piece nearest by box gives an upper bound d0 on the distance; every piece at
- *   distance ≤ d0 has its box within the square of half-side d0, so the minimum over those is exact;
- * - inside (even-odd): a piece crossing the ray to the right of the point has a box meeting that ray;
- * - farthest: pieces in runs of FARTHEST_RUN with their boxes, scanned in order of the farthest
- *   corner of the box (an upper bound) until that bound falls below the BOUND_FAR-th best distance.
+ * A strip tree over the outline's pieces in drawing order [D. H. Ballard, "Strip trees: a hierarchical
+ * representation for curves", CACM 24(5), 1981]: node k is a run of consecutive pieces, the chord from
+ * the run's first point to its last, and ε, the largest distance of a point of the run from that
+ * chord (a line piece's is its farther end's, as the distance to a segment is convex along a line; an
+ * arc's adds its sagitta, the most it strays from its own chord). Every point of the run lies within ε
+ * of the chord, so the run is no nearer to a point than the chord less ε and no farther than the
+ * chord's farthest point plus ε. Children of k are 2k + 1 and 2k + 2; a run of at most CHORD_LEAF
+ * pieces is a leaf.
+ */
+export function buildChordTree(pieces: readonly SearchPiece[]) {
+  const n = pieces.length;
+  // Halving reaches runs of at most CHORD_LEAF pieces at the depth where 2^depth · CHORD_LEAF ≥ n.
+  let leaves = 1;
+  while (CHORD_LEAF * leaves < n) leaves *= 2;
+  const size = 2 * leaves;
+  const lo = new Int32Array(size).fill(-1), hi = new Int32Array(size);
+  const ax = new Float64Array(size), ay = new Float64Array(size), bx = new Float64Array(size), by = new Float64Array(size), eps = new Float64Array(size);
+  const sagitta = pieces.map((p) => {
+    const c = p.circle;
+    if (!c) return 0;
+    const half = len(p.bx - p.ax, p.by - p.ay) / 2;
+    return c.r - Math.sqrt(Math.max(0, c.r * c.r - half * half));
+  });
+  const build = (k: number, from: number, to: number) => {
+    lo[k] = from; hi[k] = to;
+    const x0 = pieces[from]!.ax, y0 = pieces[from]!.ay, x1 = pieces[to - 1]!.bx, y1 = pieces[to - 1]!.by;
+    ax[k] = x0; ay[k] = y0; bx[k] = x1; by[k] = y1;
+    let e = 0;
+    for (let i = from; i < to; i++) {
+      const p = pieces[i]!;
+      e = Math.max(e, Math.max(distToSegment(p.ax, p.ay, x0, y0, x1, y1), distToSegment(p.bx, p.by, x0, y0, x1, y1)) + sagitta[i]!);
+    }
+    eps[k] = e;
+    if (to - from <= CHORD_LEAF) return;
+    const mid = (from + to) >> 1;
+    build(2 * k + 1, from, mid);
+    build(2 * k + 2, mid, to);
+  };
+  if (n > 0) build(0, 0, n);
+  return { lo, hi, ax, ay, bx, by, eps };
+}
+
+/**
+ * Distance queries on an outline, with the same values as scanning every piece: the nearest and the
+ * farthest pieces are found by best-first descents of a chord tree (`buildChordTree`), which skip a
+ * run when its bound cannot beat the pieces already held; inside (even-odd) by a flatbush query of the
+ * pieces crossing the ray to the right of the point. On a near-circle every piece is almost equally
+ * far from the cells near its centre, where boxes of pieces (axis-aligned, as wide as a diagonal piece
+ * is long) separate little and the chords' strips separate well.
  */
 function createOutlineDistance(outline: SearchOutline) {
   const pieces = outline.pieces, n = pieces.length;
-  const boxes = pieces.map(pieceBox);
   const index = new Flatbush(Math.max(1, n));
-  for (const b of boxes) index.add(...b);
+  for (const p of pieces) index.add(...pieceBox(p));
   if (n === 0) index.add(0, 0, 0, 0);
   index.finish();
   const all = pieces.map((_, i) => i);
+  const tree = buildChordTree(pieces);
+  const { lo, hi, ax, ay, bx, by, eps } = tree;
+  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
+  // The descent's stack of nodes and their bounds (depth ≤ log₂ of the leaves, two entries a level).
+  const stack = new Int32Array(128), stackBound = new Float64Array(128);
   const near: number[] = [], nearD: number[] = [];
+  /** The nearest distance; `near` holds the `keep` nearest pieces, nearest first. */
   const nearest = (x: number, y: number, keep: number) => {
     near.length = 0; nearD.length = 0;
     if (n === 0) return Infinity;
-    let candidates = all;
-    if (n > SCAN_PIECES) {
-      const d0 = distToPiece(pieces[index.neighbors(x, y, 1)[0]!]!, x, y);
-      candidates = index.search(x - d0, y - d0, x + d0, y + d0);
-    }
-    for (const i of candidates) {
-      const d = distToPiece(pieces[i]!, x, y);
-      if (near.length === keep && d >= nearD[keep - 1]!) continue;
-      let k = Math.min(near.length, keep - 1);
-      near[k] = i; nearD[k] = d;
-      while (k > 0 && nearD[k - 1]! > d) { near[k] = near[k - 1]!; nearD[k] = nearD[k - 1]!; near[k - 1] = i; nearD[k - 1] = d; k--; }
+    let top = 0;
+    stack[top] = 0; stackBound[top++] = -Infinity;
+    while (top > 0) {
+      const k = stack[--top]!;
+      if (near.length === keep && stackBound[top]! >= nearD[keep - 1]!) continue;
+      if (hi[k]! - lo[k]! <= CHORD_LEAF) {
+        for (let i = lo[k]!; i < hi[k]!; i++) {
+          const d = distToPiece(pieces[i]!, x, y);
+          if (near.length === keep && d >= nearD[keep - 1]!) continue;
+          let m = Math.min(near.length, keep - 1);
+          near[m] = i; nearD[m] = d;
+          while (m > 0 && nearD[m - 1]! > d) { near[m] = near[m - 1]!; nearD[m] = nearD[m - 1]!; near[m - 1] = i; nearD[m - 1] = d; m--; }
+        }
+        continue;
+      }
+      // The nearer child is pushed last, so it is searched first.
+      const l = 2 * k + 1, r = l + 1;
+      const bl = distToSegment(x, y, ax[l]!, ay[l]!, bx[l]!, by[l]!) - eps[l]! - slack;
+      const br = distToSegment(x, y, ax[r]!, ay[r]!, bx[r]!, by[r]!) - eps[r]! - slack;
+      const first = bl <= br ? r : l, second = bl <= br ? l : r;
+      stack[top] = first; stackBound[top++] = Math.max(bl, br);
+      stack[top] = second; stackBound[top++] = Math.min(bl, br);
     }
     return nearD[0]!;
   };
@@ -530,60 +588,61 @@ function createOutlineDistance(outline: SearchOutline) {
     }
     return odd;
   };
-  const runs: [number, number, number, number, number][] = [];
-  for (let s = 0; s < n; s += FARTHEST_RUN) {
-    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-    for (let k = s; k < Math.min(n, s + FARTHEST_RUN); k++) {
-      const [x0, y0, x1, y1] = boxes[k]!;
-      minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
-    }
-    runs.push([s, minX, minY, maxX, maxY]);
-  }
-  const runBound = new Float64Array(runs.length);
-  const order = runs.map((_, k) => k);
   const far: [number, number, number][] = [], farPiece: number[] = [];
   /** The farthest distance; `far` holds the BOUND_FAR farthest pieces' farthest points, farthest first. */
   const farD: number[] = [];
   const farthest = (x: number, y: number) => {
     far.length = 0; farD.length = 0; farPiece.length = 0;
-    runs.forEach(([, minX, minY, maxX, maxY], k) => {
-      runBound[k] = len(Math.max(x - minX, maxX - x), Math.max(y - minY, maxY - y));
-    });
-    if (runs.length > 1) order.sort((p, q) => runBound[q]! - runBound[p]!);
-    for (const k of order) {
-      if (farD.length === BOUND_FAR && runBound[k]! <= farD[BOUND_FAR - 1]!) break;
-      const s = runs[k]![0];
-      for (let i = s; i < Math.min(n, s + FARTHEST_RUN); i++) {
-        const d = farthestDistance(pieces[i]!, x, y);
-        if (farD.length === BOUND_FAR && d <= farD[BOUND_FAR - 1]!) continue;
-        let j = Math.min(farD.length, BOUND_FAR - 1);
-        farD[j] = d; farPiece[j] = i;
-        while (j > 0 && farD[j - 1]! < d) { farD[j] = farD[j - 1]!; farPiece[j] = farPiece[j - 1]!; farD[j - 1] = d; farPiece[j - 1] = i; j--; }
+    if (n === 0) return 0;
+    let top = 0;
+    stack[top] = 0; stackBound[top++] = Infinity;
+    while (top > 0) {
+      const k = stack[--top]!;
+      if (farD.length === BOUND_FAR && stackBound[top]! <= farD[BOUND_FAR - 1]!) continue;
+      if (hi[k]! - lo[k]! <= CHORD_LEAF) {
+        for (let i = lo[k]!; i < hi[k]!; i++) {
+          const d = farthestDistance(pieces[i]!, x, y);
+          if (farD.length === BOUND_FAR && d <= farD[BOUND_FAR - 1]!) continue;
+          let m = Math.min(farD.length, BOUND_FAR - 1);
+          farD[m] = d; farPiece[m] = i;
+          while (m > 0 && farD[m - 1]! < d) { farD[m] = farD[m - 1]!; farPiece[m] = farPiece[m - 1]!; farD[m - 1] = d; farPiece[m - 1] = i; m--; }
+        }
+        continue;
       }
+      // The farther child is pushed last, so it is searched first.
+      const l = 2 * k + 1, r = l + 1;
+      const bl = Math.max(len(x - ax[l]!, y - ay[l]!), len(x - bx[l]!, y - by[l]!)) + eps[l]! + slack;
+      const br = Math.max(len(x - ax[r]!, y - ay[r]!), len(x - bx[r]!, y - by[r]!)) + eps[r]! + slack;
+      const first = bl >= br ? r : l, second = bl >= br ? l : r;
+      stack[top] = first; stackBound[top++] = Math.min(bl, br);
+      stack[top] = second; stackBound[top++] = Math.max(bl, br);
     }
     for (const i of farPiece) far.push(farthestOnPiece(pieces[i]!, x, y));
-    return farD[0] ?? 0;
+    return farD[0]!;
   };
-  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
   const nearBounds = (x: number, y: number, h: number) => {
     const gs: Bound[] = [];
     for (const i of near) { const g = linearUpperBound(pieces[i]!, x, y, h); if (g) gs.push(g); }
     return gs;
   };
   return {
-    /** Signed distance (positive inside) at the cell's centre and an upper bound over the cell. */
-    signedWithBound: (x: number, y: number, h: number) => {
+    /** Signed distance (positive inside) at the cell's centre, an upper bound over the cell, and
+     *  the cell's side of the outline for its children (1 inside, 0 outside, −1 when it may meet
+     *  the outline). */
+    signedWithBound: (x: number, y: number, h: number, parentSide: number | null) => {
       const d = nearest(x, y, BOUND_NEAR);
-      const f = inside(x, y) ? d : -d;
+      const side = parentSide !== null && parentSide >= 0 ? parentSide : inside(x, y) ? 1 : 0;
+      const f = side === 1 ? d : -d;
       let upper = f + h * Math.SQRT2;
       const gs = nearBounds(x, y, h);
       if (gs.length > 0) upper = Math.min(upper, maxOfMinLinear(gs, x, y, h) + slack);
-      return { f, upper };
+      return { f, upper, next: d > h * Math.SQRT2 + slack ? side : -1 };
     },
     /**
      * Minus the zone width (farthest − nearest) at the cell's centre and an upper bound over the
-     * cell: the Lipschitz bound (constant 2), or min over pairs of g_near − ℓ_far, where ℓ(p) =
-     * u·(p − Q) ≤ |p − Q| ≤ farthest(p) for a farthest point Q and u the unit vector from Q to the centre.
+     * cell: the Lipschitz bound (constant 2), or min over pairs of g_near − ℓ_far, where
+     * ℓ(p) = u·(p − Q) ≤ |p − Q| ≤ farthest(p) for a farthest point Q and u the unit vector from Q to
+     * the centre. Nothing is handed to the children.
      */
     negWidthWithBound: (x: number, y: number, h: number) => {
       const f = nearest(x, y, BOUND_NEAR) - farthest(x, y);
@@ -613,7 +672,7 @@ function createOutlineDistance(outline: SearchOutline) {
         for (const i of near) { const g = circleGapUpperBound(pieces[i]!, outer, x, y, h); if (g) pairs.push(g); }
       }
       if (pairs.length > 0) upper = Math.min(upper, maxOfMinLinear(pairs, x, y, h) + slack);
-      return { f, upper };
+      return { f, upper, next: null };
     },
     /** Zone width and outer radius about a point. */
     width: (x: number, y: number) => { const outer = farthest(x, y); return { width: outer - nearest(x, y, 1), outer }; },
@@ -622,23 +681,24 @@ function createOutlineDistance(outline: SearchOutline) {
 
 // ---------------------------------------------------------------- branch and bound
 
-interface Cell { x: number; y: number; h: number; f: number; bound: number }
+interface Cell<S> { x: number; y: number; h: number; f: number; bound: number; next: S }
 
 /**
- * Best-first branch and bound maximising f over square cells; `evaluate` gives f at a cell's centre
- * and an upper bound of f over the cell. Returns the best point, its value and the largest upper
+ * Best-first branch and bound maximising f over square cells; `evaluate` gives f at a cell's centre,
+ * an upper bound of f over the cell and what the cell hands its children (`parent` of their
+ * evaluations; null for the first cell). Returns the best point, its value and the largest upper
  * bound left when stopping (≤ best + tol unless capped).
  */
-function maximise(evaluate: (x: number, y: number, h: number) => { f: number; upper: number }, box: readonly [number, number, number, number], tol: number, accept: (x: number, y: number, h: number) => boolean) {
+function maximise<S>(evaluate: (x: number, y: number, h: number, parent: S | null) => { f: number; upper: number; next: S }, box: readonly [number, number, number, number], tol: number, accept: (x: number, y: number, h: number) => boolean) {
   const [minX, minY, maxX, maxY] = box;
   const size = Math.max(maxX - minX, maxY - minY) || 1;
-  const heap: Cell[] = [];
+  const heap: Cell<S>[] = [];
   let best = { x: (minX + maxX) / 2, y: (minY + maxY) / 2, f: -Infinity };
-  const push = (x: number, y: number, h: number) => {
+  const push = (x: number, y: number, h: number, parent: S | null) => {
     if (!accept(x, y, h)) return;
-    const { f, upper } = evaluate(x, y, h);
+    const { f, upper, next } = evaluate(x, y, h, parent);
     if (f > best.f) best = { x, y, f };
-    const cell = { x, y, h, f, bound: upper };
+    const cell = { x, y, h, f, bound: upper, next };
     heap.push(cell);
     let i = heap.length - 1;
     while (i > 0) {
@@ -648,7 +708,7 @@ function maximise(evaluate: (x: number, y: number, h: number) => { f: number; up
       i = p;
     }
   };
-  const pop = (): Cell => {
+  const pop = (): Cell<S> => {
     const top = heap[0]!;
     const last = heap.pop()!;
     if (heap.length > 0) {
@@ -667,7 +727,7 @@ function maximise(evaluate: (x: number, y: number, h: number) => { f: number; up
     return top;
   };
   const h0 = size / 2;
-  push((minX + maxX) / 2, (minY + maxY) / 2, h0);
+  push((minX + maxX) / 2, (minY + maxY) / 2, h0, null);
   let cells = 0;
   let capped = false;
   while (heap.length > 0) {
@@ -681,7 +741,7 @@ function maximise(evaluate: (x: number, y: number, h: number) => { f: number; up
       return { ...best, upper: c.bound, capped };
     }
     const h = c.h / 2;
-    push(c.x - h, c.y - h, h); push(c.x + h, c.y - h, h); push(c.x - h, c.y + h, h); push(c.x + h, c.y + h, h);
+    push(c.x - h, c.y - h, h, c.next); push(c.x + h, c.y - h, h, c.next); push(c.x - h, c.y + h, h, c.next); push(c.x + h, c.y + h, h, c.next);
   }
   return { ...best, upper: best.f, capped };
 }

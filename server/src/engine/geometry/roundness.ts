@@ -532,8 +532,8 @@ export function buildChordTree(pieces: readonly SearchPiece[]) {
 
 /**
  * Distance queries on an outline, with the same values as scanning every piece: the nearest and the
- * farthest pieces are found by best-first descents of a chord tree (`buildChordTree`), which skip a
- * run when its bound cannot beat the pieces already held; inside (even-odd) by a flatbush query of the
+ * farthest pieces are found by depth-first descents of a chord tree (`buildChordTree`), the more
+ * promising child first, which skip a run when its bound cannot beat the pieces already held; inside (even-odd) by a flatbush query of the
  * pieces crossing the ray to the right of the point. On a near-circle every piece is almost equally
  * far from the cells near its centre, where boxes of pieces (axis-aligned, as wide as a diagonal piece
  * is long) separate little and the chords' strips separate well.
@@ -548,7 +548,7 @@ function createOutlineDistance(outline: SearchOutline) {
   const tree = buildChordTree(pieces);
   const { lo, hi, ax, ay, bx, by, eps } = tree;
   const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
-  // The descent's stack of nodes and their bounds (depth ≤ log₂ of the leaves, two entries a level).
+  // The descent's stack of nodes and their bounds: a pending sibling a level at most, so ~log₂ n entries.
   const stack = new Int32Array(128), stackBound = new Float64Array(128);
   const near: number[] = [], nearD: number[] = [];
   /** The nearest distance; `near` holds the `keep` nearest pieces, nearest first. */

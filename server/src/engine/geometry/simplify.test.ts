@@ -85,6 +85,20 @@ describe('simplifyClosedPolyline', () => {
     expect(s.deviationMm).toBeLessThanOrEqual(4 * sagitta);
   });
 
+  it('thins a square of 40 000 points (10 000 a side, its corners between the subsample\'s points) to its corners with no deviation: the subsample cuts the corners, so the whole loop is thinned (elementary geometry)', () => {
+    const side = 10_000, n = 4 * side, xs = new Float64Array(n), ys = new Float64Array(n);
+    const corners: [number, number][] = [[0, 0], [1, 0], [1, 1], [0, 1]];
+    // Rotated by 3 so that no corner is at an index the subsample's step divides.
+    for (let k = 0; k < n; k++) {
+      const q = (k + 3) % n, c = Math.floor(q / side), t = (q % side) / side;
+      const [x0, y0] = corners[c]!, [x1, y1] = corners[(c + 1) % 4]!;
+      xs[k] = x0 + t * (x1 - x0); ys[k] = y0 + t * (y1 - y0);
+    }
+    const s = simplifyClosedPolyline(xs, ys, Int32Array.from({ length: n }, (_, i) => i), new Uint8Array(n), 100)!;
+    expect(s.deviationMm).toBeLessThanOrEqual(1e-12);
+    for (const q of [0, side, 2 * side, 3 * side]) expect(s.keep[(q - 3 + n) % n]).toBe(1);
+  });
+
   it('keeps a loop that fits the budget as it is, with no deviation', () => {
     const loop = starLoop([1, 2, 1, 2, 1, 2]);
     const s = simplifyClosedPolyline(loop.xs, loop.ys, Int32Array.from([0, 1, 2, 3, 4, 5]), new Uint8Array(6), 6)!;

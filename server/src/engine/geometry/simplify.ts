@@ -43,16 +43,72 @@ export function distToSegment(x: number, y: number, ax: number, ay: number, bx: 
   return Math.sqrt(ex * ex + ey * ey);
 }
 
+/** From this many vertices per kept one, a loop is first thinned on an evenly spaced subsample of
+ *  about half as many vertices per kept one. */
+export const SUBSAMPLE_FROM = 8;
+
 /**
  * Keeps at most `maxKept` of the closed polyline's vertices `order` (indices into xs, ys, in cyclic
  * order; the loop closes from the last back to the first), always keeping those with `fixed[k]`
  * (aligned with `order`). With no fixed entry, the first and the vertex farthest from it are fixed.
  * Null when the fixed ones alone exceed the budget, or the work cap (`workPerVertex` distance
  * evaluations per vertex) is reached.
+ *
+ * A loop of more than SUBSAMPLE_FROM vertices per kept one is first thinned on a subsample (every
+ * step-th entry and every fixed one), which costs the split tree's depth on the subsample instead of
+ * on the whole loop. Its choice is kept when every vertex lies within twice the subsample's own
+ * deviation of the kept chords (measured over every vertex, which is the bound returned): on a finely
+ * divided smooth curve the vertices between samples lie as close as the samples do. A feature between
+ * samples (a corner, a spike) shows as a larger deviation, and the whole loop is thinned instead.
  */
 export function simplifyClosedPolyline(
   xs: Float64Array, ys: Float64Array, order: Int32Array, fixed: Uint8Array, maxKept: number,
   workPerVertex = SIMPLIFY_WORK_PER_VERTEX,
+): Simplified | null {
+  const m = order.length;
+  if (m > SUBSAMPLE_FROM * maxKept) {
+    const step = Math.floor((2 * m) / (SUBSAMPLE_FROM * maxKept));
+    let count = 0;
+    for (let k = 0; k < m; k++) if (k % step === 0 || fixed[k]) count++;
+    const subOrder = new Int32Array(count), subFixed = new Uint8Array(count), at = new Int32Array(count);
+    for (let k = 0, j = 0; k < m; k++) {
+      if (k % step !== 0 && !fixed[k]) continue;
+      subOrder[j] = order[k]!; subFixed[j] = fixed[k]!; at[j++] = k;
+    }
+    const sub = thinLoop(xs, ys, subOrder, subFixed, maxKept, workPerVertex);
+    if (sub) {
+      const keep = new Uint8Array(m);
+      for (let j = 0; j < count; j++) keep[at[j]!] = sub.keep[j]!;
+      const deviation = getDeviation(xs, ys, order, keep);
+      if (deviation <= 2 * sub.deviationMm) return { keep, kept: sub.kept, deviationMm: deviation };
+    }
+  }
+  return thinLoop(xs, ys, order, fixed, maxKept, workPerVertex);
+}
+
+/** The largest distance of a dropped vertex of the loop `order` from the chord across it between the
+ *  kept ones (`keep`, aligned with `order`; at least one is kept). */
+function getDeviation(xs: Float64Array, ys: Float64Array, order: Int32Array, keep: Uint8Array): number {
+  const m = order.length;
+  let first = 0;
+  while (!keep[first]) first++;
+  let deviation = 0;
+  for (let a = first; a < first + m;) {
+    let b = a + 1;
+    while (!keep[b % m]) b++;
+    const i = order[a % m]!, j = order[b % m]!;
+    for (let p = a + 1; p < b; p++) {
+      const k = order[p % m]!;
+      deviation = Math.max(deviation, distToSegment(xs[k]!, ys[k]!, xs[i]!, ys[i]!, xs[j]!, ys[j]!));
+    }
+    a = b;
+  }
+  return deviation;
+}
+
+/** `simplifyClosedPolyline` on the whole loop. */
+function thinLoop(
+  xs: Float64Array, ys: Float64Array, order: Int32Array, fixed: Uint8Array, maxKept: number, workPerVertex: number,
 ): Simplified | null {
   const m = order.length;
   const isFixed = Uint8Array.from(fixed);
@@ -131,14 +187,7 @@ export function simplifyClosedPolyline(
   }
   for (let p = 0; p < m; p++) keep[(start + p) % m] = kept[p]!;
   // The bound, measured over every dropped vertex against its kept chord.
-  let deviation = 0;
-  for (let a = 0; a < m;) {
-    let b = a + 1;
-    while (!kept[b]) b++;
-    for (let p = a + 1; p < b; p++) deviation = Math.max(deviation, distToSegment(px[p]!, py[p]!, px[a]!, py[a]!, px[b]!, py[b]!));
-    a = b;
-  }
-  return { keep, kept: count, deviationMm: deviation };
+  return { keep, kept: count, deviationMm: getDeviation(xs, ys, order, keep) };
 }
 
 /** A binary max-heap of runs (lo, hi) with their farthest vertex `split` and its key `value`. */

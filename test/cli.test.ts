@@ -71,6 +71,7 @@ interface JsonFile {
   units: { declared: boolean; mmPerUnit: number; assumed: string | null };
   contours: JsonContour[];
   summary: { contours: number; parts: number; pierces: number; cutLengthMm: number; netAreaMm2: number };
+  parts: { outer: number; holes: number[]; netAreaMm2: number; holesTurnOpposite: boolean | null }[];
   problems: { id: string; severity: string; message: string; line: number; column: number; endLine: number; endColumn: number }[];
 }
 
@@ -142,6 +143,16 @@ describe('loopwise check on samples/lamp-panel.svg (mm drawing, clean)', () => {
     // Holes: four M4 circles r 2.2, the window r 20 (§2.1), two vents, the crescent.
     expect(summary.cutLengthMm).toBeCloseTo(edgeL + 4 * 2 * PI * 2.2 + 2 * PI * 20 + 2 * hexL + moonL, 4);
     expect(summary.netAreaMm2).toBeCloseTo(edgeA - 4 * PI * 2.2 ** 2 - PI * 400 - 2 * hexA - moonA, 4);
+  });
+
+  it('lists the one part: the edge with its 8 holes, net area edge − holes, holes not turning against it (rect and circle run clockwise by SVG 2\'s equivalent paths, REFERENCES §5.6; §2.1, §2.2, §2.9, §4.3)', async () => {
+    const { parts } = await report('lamp-panel.svg');
+    const edgeA = 150 * 90 - (4 - PI) * 36, hexA = ((3 * Math.sqrt(3)) / 2) * 36;
+    const t9 = 2 * PI - 2 * Math.asin(8 / 9), t11 = 2 * PI - 2 * Math.asin(8 / 11);
+    const segment = (r: number, t: number) => ((r * r) / 2) * (t - Math.sin(t));
+    expect(parts).toHaveLength(1);
+    expect(parts[0]).toMatchObject({ outer: 0, holes: [1, 2, 3, 4, 5, 6, 7, 8], holesTurnOpposite: false });
+    expect(parts[0]!.netAreaMm2).toBeCloseTo(edgeA - 4 * PI * 2.2 ** 2 - PI * 400 - 2 * hexA - (segment(11, t11) - segment(9, t9)), 4);
   });
 
   it('nests every hole in the panel edge and finds no crossing, touch or double cut', async () => {

@@ -134,6 +134,6 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
     checkCancelled();
   }
   sortBySpan(findings);
-  return { format, yAxis: readResult.yAxis, units: readResult.units, contours, summary: geometry.summary, findings };
+  return { format, yAxis: readResult.yAxis, units: readResult.units, contours, summary: geometry.summary, parts: geometry.nesting.parts, findings };
 }
 

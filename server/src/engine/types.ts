@@ -286,12 +286,26 @@ export interface FileSummary {
   readonly netAreaMm2: number;
 }
 
+/** A part: an outer boundary (closed, even depth) with its holes (closed, one level deeper, inside it). */
+export interface Part {
+  /** Contour index of the outer boundary. */
+  readonly outer: number;
+  /** Contour indices of its holes. */
+  readonly holes: readonly number[];
+  /** |area of the outer boundary| − Σ |area of each hole| (mm²). */
+  readonly netAreaMm2: number;
+  /** Every hole turns the other way from the outer boundary (information only; null when an orientation is undefined). */
+  readonly orientationConsistent: boolean | null;
+}
+
 export interface AnalysisResult {
   readonly format: FileFormat;
   readonly yAxis: YAxis;
   readonly units: UnitsInfo;
   readonly contours: readonly ContourResult[];
   readonly summary: FileSummary;
+  /** The parts, in the order of their outer boundaries. */
+  readonly parts: readonly Part[];
   /** All problems, sorted by position; severities resolved, `off` ones removed. */
   readonly findings: readonly Finding[];
 }

@@ -97,6 +97,8 @@ describe('getContourCard', () => {
     const otherWay = { ...sameWay, metrics: { ...sameWay.metrics, signedAreaMm2: { value: -8 }, orientation: 'ccw' as const } };
     expect(row(getContourCard(sameWay, makeResult([rect, sameWay])), 'Nesting')).toBe('hole in contour #0, turning the same way (cw)');
     expect(row(getContourCard(otherWay, makeResult([rect, otherWay])), 'Nesting')).toBe('hole in contour #0, turning the other way (ccw in cw)');
+    // The plate's own card counts its hole and gives the part's net area, 10 × 20 − 2 × 4.
+    expect(row(getContourCard(rect, makeResult([rect, sameWay])), 'Nesting')).toBe('outer boundary, 1 hole, part net area 192 mm²');
   });
 
   it('reads floating-point residue as 0: a circle of exact arcs has deficit 0 and R − ρ 0 within R\'s bound', () => {

@@ -71,12 +71,16 @@ function deficit(metrics: ContourMetrics): string {
   return Math.abs(d.value) <= rounding ? '0 mm² (to rounding)' : `${formatNumber(d.value)} mm²`;
 }
 
-/** Where the contour lies; for a hole, whether it turns opposite its outline (information only). */
+/** Where the contour lies; for a hole, whether it turns opposite its outline (information only); for
+ *  the outer boundary of a part with holes, their number and the part's net area. */
 function describeNesting(entry: CardSource, result: AnalysisFigures): string {
   const { geometry: g, metrics } = entry;
-  if (g.parent === null) return metrics.closed ? 'outer boundary' : 'not inside any closed contour';
+  const part = result.parts.find((p) => p.outer === entry.contour.index);
+  const holes = !part || part.holes.length === 0 ? ''
+    : `, ${part.holes.length === 1 ? '1 hole' : `${part.holes.length} holes`}, part net area ${formatNumber(part.netAreaMm2)} mm²`;
+  if (g.parent === null) return metrics.closed ? `outer boundary${holes}` : 'not inside any closed contour';
   if (!metrics.closed) return `inside contour #${g.parent}`;
-  if (g.depth % 2 === 0) return `island inside contour #${g.parent}`;
+  if (g.depth % 2 === 0) return `island inside contour #${g.parent}${holes}`;
   const outer = result.contours.find((c) => c.contour.index === g.parent)?.metrics.orientation ?? null;
   const turn = metrics.orientation === null || outer === null ? ''
     : metrics.orientation === outer ? `, turning the same way (${outer})` : `, turning the other way (${metrics.orientation} in ${outer})`;

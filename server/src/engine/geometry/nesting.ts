@@ -8,20 +8,9 @@
  * Candidate containers come from a flatbush index of contour boxes. [common practice, no source]
  */
 import Flatbush from 'flatbush';
-import type { FileSummary, MeasuredContour } from '../types';
+import type { FileSummary, MeasuredContour, Part } from '../types';
 import { getPiecePoint } from './intersectPieces';
 import { createWindingTester, type WindingTester } from './winding';
-
-export interface Part {
-  /** Contour index of the outer boundary. */
-  readonly outer: number;
-  /** Contour indices of its holes. */
-  readonly holes: readonly number[];
-  /** |area of the outer boundary| − Σ |area of each hole| (mm²). */
-  readonly netAreaMm2: number;
-  /** Every hole turns the other way from the outer boundary (information only; null when an orientation is undefined). */
-  readonly orientationConsistent: boolean | null;
-}
 
 export interface Nesting {
   /** Per contour (by position): index of the innermost closed contour containing it, or null. */

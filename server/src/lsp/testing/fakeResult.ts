@@ -3,7 +3,7 @@
  * figures written in the test (with their formulas), not against the engine's own output.
  */
 import { toFigures } from '../../engine/index';
-import type { AnalysisFigures, Contour, ContourGeometry, ContourMetrics, ContourResult, FileSummary, Finding, SourceSpan, UnitsInfo } from '../../engine/index';
+import type { AnalysisFigures, Contour, ContourGeometry, ContourMetrics, ContourResult, FileSummary, Finding, Part, SourceSpan, UnitsInfo } from '../../engine/index';
 
 /** The span of the first occurrence of `needle` in `text` (after `from`); throws when absent. */
 export function spanOf(text: string, needle: string, from = 0): SourceSpan {
@@ -117,6 +117,21 @@ export function summarize(contours: readonly ContourResult[]): FileSummary {
   };
 }
 
+/** The parts by their definition: each closed contour at even depth with the closed contours one level
+ *  deeper whose parent it is; net area outer − holes; holes opposite when every one turns the other way. */
+export function partsOf(contours: readonly ContourResult[]): Part[] {
+  return contours.filter((c) => c.metrics.closed && c.geometry.depth % 2 === 0).map((outer) => {
+    const holes = contours.filter((c) => c.metrics.closed && c.geometry.parent === outer.contour.index && c.geometry.depth % 2 === 1);
+    const turns = [outer, ...holes].map((c) => c.metrics.orientation);
+    return {
+      outer: outer.contour.index,
+      holes: holes.map((h) => h.contour.index),
+      netAreaMm2: (outer.metrics.areaMm2.value ?? 0) - holes.reduce((s, h) => s + (h.metrics.areaMm2.value ?? 0), 0),
+      orientationConsistent: turns.includes(null) ? null : turns.slice(1).every((t) => t !== turns[0]),
+    };
+  });
+}
+
 export const MM_UNITS: UnitsInfo = { declared: true, mmPerUnit: 1, assumed: null, span: { start: 0, end: 0 } };
 /** CSS px: 1 px = 1/96 in = 25.4/96 mm (CSS Values and Units Level 3, §5.2 absolute lengths). */
 export const PX_UNITS: UnitsInfo = { declared: false, mmPerUnit: 25.4 / 96, assumed: 'px', span: { start: 0, end: 0 } };
@@ -126,5 +141,5 @@ export function makeResult(
   findings: readonly Finding[] = [],
   units: UnitsInfo = MM_UNITS,
 ): AnalysisFigures {
-  return toFigures({ format: 'svg', yAxis: 'down', units, contours, summary: summarize(contours), findings });
+  return toFigures({ format: 'svg', yAxis: 'down', units, contours, summary: summarize(contours), parts: partsOf(contours), findings });
 }

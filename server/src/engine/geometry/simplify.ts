@@ -45,7 +45,7 @@ export function distToSegment(x: number, y: number, ax: number, ay: number, bx: 
 
 /** From this many vertices per kept one, a loop is first thinned on an evenly spaced subsample of
  *  about half as many vertices per kept one. */
-export const SUBSAMPLE_FROM = 8;
+const SUBSAMPLE_FROM = 8;
 
 /**
  * Keeps at most `maxKept` of the closed polyline's vertices `order` (indices into xs, ys, in cyclic

@@ -5,7 +5,7 @@ import { measureContour } from './measure';
 import { getContourPolyline, getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
 import { findSelfIntersections } from './intersect';
-import { buildChordTree, getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea, type SearchPiece } from './roundness';
+import { buildChordTree, createOutlineDistance, getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea, type SearchPiece } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
 /** Roundness and hull of a contour, told whether it crosses itself by the intersection search. */
@@ -397,23 +397,28 @@ describe('chord tree (the searches\' nearest and farthest pieces)', () => {
     return Math.hypot(x - ax - t * dx, y - ay - t * dy);
   };
 
+  const specsArb = fc.array(fc.record({
+    turn: fc.double({ min: 0.001, max: Math.PI / 2, noNaN: true }),
+    r: fc.double({ min: 0.1, max: 50, noNaN: true }),
+    arc: fc.boolean(),
+  }), { minLength: 1, maxLength: 120 });
+  /** A path of pieces, each an arc of radius r turning left by `turn` (counter-clockwise, y up), or its chord. */
+  const walk = (specs: readonly { turn: number; r: number; arc: boolean }[]): SearchPiece[] => {
+    const pieces: SearchPiece[] = [];
+    let x = 0, y = 0, heading = 0;
+    for (const { turn, r, arc: isArc } of specs) {
+      const cx = x - r * Math.sin(heading), cy = y + r * Math.cos(heading);
+      const a0 = Math.atan2(y - cy, x - cx), a1 = a0 + turn;
+      const bx = cx + r * Math.cos(a1), by = cy + r * Math.sin(a1);
+      pieces.push({ ax: x, ay: y, bx, by, circle: isArc ? { cx, cy, r, ccw: true, span: [x, y, bx, by] } : null });
+      x = bx; y = by; heading += turn;
+    }
+    return pieces;
+  };
+
   it('holds every point of every run within its node\'s ε of the node\'s chord: a wavy loop of lines and arcs of up to a quarter turn, each sampled at 65 points (the strip-tree invariant, Ballard 1981; fast-check, seed 23)', () => {
-    const piecesArb = fc.array(fc.record({
-      turn: fc.double({ min: 0.001, max: Math.PI / 2, noNaN: true }),
-      r: fc.double({ min: 0.1, max: 50, noNaN: true }),
-      arc: fc.boolean(),
-    }), { minLength: 1, maxLength: 120 });
-    fc.assert(fc.property(piecesArb, (specs) => {
-      // Walk a path: each piece an arc of radius r turning by `turn`, or the chord of that arc.
-      const pieces: SearchPiece[] = [];
-      let x = 0, y = 0, heading = 0;
-      for (const { turn, r, arc: isArc } of specs) {
-        const cx = x - r * Math.sin(heading), cy = y + r * Math.cos(heading);
-        const a0 = Math.atan2(y - cy, x - cx), a1 = a0 + turn;
-        const bx = cx + r * Math.cos(a1), by = cy + r * Math.sin(a1);
-        pieces.push({ ax: x, ay: y, bx, by, circle: isArc ? { cx, cy, r, ccw: true, span: [x, y, bx, by] } : null });
-        x = bx; y = by; heading += turn;
-      }
+    fc.assert(fc.property(specsArb, (specs) => {
+      const pieces = walk(specs);
       const tree = buildChordTree(pieces);
       for (let k = 0; k < tree.lo.length; k++) {
         if (tree.lo[k]! < 0) continue;
@@ -432,5 +437,72 @@ describe('chord tree (the searches\' nearest and farthest pieces)', () => {
         }
       }
     }), { seed: 23, numRuns: 60 });
+  });
+
+  it('finds the same nearest and farthest distances as a scan of every piece, from points in and around random paths of lines and arcs (distances by their definitions; fast-check, seed 29)', () => {
+    /** Nearest and farthest distance from (x, y) to a piece, by definition: a segment's farthest point
+     *  is an end; an arc's nearest point is the foot of the ray from its centre when that lies in its
+     *  sector, its farthest the antipode of that foot when that does, and an end otherwise. */
+    const inSector = (p: SearchPiece, dx: number, dy: number) => {
+      const c = p.circle!, a0 = Math.atan2(p.ay - c.cy, p.ax - c.cx), a1 = Math.atan2(p.by - c.cy, p.bx - c.cx);
+      const sweep = (a1 - a0 + 4 * Math.PI) % (2 * Math.PI), t = (Math.atan2(dy, dx) - a0 + 4 * Math.PI) % (2 * Math.PI);
+      return t <= sweep;
+    };
+    const ends = (p: SearchPiece, x: number, y: number) => [Math.hypot(x - p.ax, y - p.ay), Math.hypot(x - p.bx, y - p.by)];
+    const near = (p: SearchPiece, x: number, y: number) => {
+      const c = p.circle;
+      if (!c) return toSegment(x, y, p.ax, p.ay, p.bx, p.by);
+      const d = Math.hypot(x - c.cx, y - c.cy);
+      return inSector(p, x - c.cx, y - c.cy) ? Math.abs(d - c.r) : Math.min(...ends(p, x, y));
+    };
+    const far = (p: SearchPiece, x: number, y: number) => {
+      const c = p.circle;
+      if (!c) return Math.max(...ends(p, x, y));
+      const d = Math.hypot(x - c.cx, y - c.cy);
+      return inSector(p, c.cx - x, c.cy - y) ? d + c.r : Math.max(...ends(p, x, y));
+    };
+    fc.assert(fc.property(specsArb, fc.array(fc.tuple(fc.double({ min: -1.5, max: 1.5, noNaN: true }), fc.double({ min: -1.5, max: 1.5, noNaN: true })), { minLength: 1, maxLength: 8 }), (specs, spots) => {
+      const pieces = walk(specs);
+      const { width } = createOutlineDistance({ pieces, deviationMm: 0 });
+      let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+      for (const p of pieces) for (const [x, y] of [[p.ax, p.ay], [p.bx, p.by]] as const) {
+        minX = Math.min(minX, x); maxX = Math.max(maxX, x); minY = Math.min(minY, y); maxY = Math.max(maxY, y);
+      }
+      const size = Math.hypot(maxX - minX, maxY - minY) + 1;
+      // Points from the box's centre out to half its size beyond it, every piece's start, and points off
+      // every piece's middle on both sides (where an arc bulges towards the point past its chord).
+      const points = [...spots.map(([u, v]) => [(minX + maxX) / 2 + u * (maxX - minX + 1), (minY + maxY) / 2 + v * (maxY - minY + 1)]), ...pieces.map((p) => [p.ax, p.ay])];
+      for (const p of pieces) {
+        const c = p.circle;
+        const [mx, my, ux, uy] = c
+          ? (() => { const a = (Math.atan2(p.ay - c.cy, p.ax - c.cx) + Math.atan2(p.by - c.cy, p.bx - c.cx)) / 2; return [c.cx + c.r * Math.cos(a), c.cy + c.r * Math.sin(a), Math.cos(a), Math.sin(a)]; })()
+          : [(p.ax + p.bx) / 2, (p.ay + p.by) / 2, -(p.by - p.ay) / (Math.hypot(p.bx - p.ax, p.by - p.ay) || 1), (p.bx - p.ax) / (Math.hypot(p.bx - p.ax, p.by - p.ay) || 1)];
+        for (const o of [-0.3, 0.05, 0.3, 2]) points.push([mx + o * ux, my + o * uy]);
+      }
+      for (const [x, y] of points) {
+        const { width: w, outer } = width(x!, y!);
+        expect(Math.abs(outer - Math.max(...pieces.map((p) => far(p, x!, y!))))).toBeLessThanOrEqual(1e-12 * size);
+        expect(Math.abs(outer - w - Math.min(...pieces.map((p) => near(p, x!, y!))))).toBeLessThanOrEqual(1e-12 * size);
+      }
+    }), { seed: 29, numRuns: 200 });
+  });
+
+  it('looks inside a run whose chord is far but whose arc bulges close: a half circle r = 10 over (0, 0)–(20, 0) in four arcs, then four lines (by hand)', () => {
+    // The arcs run clockwise from (0, 0) over (10, 10) to (20, 0): centre (10, 0), 45° each.
+    const arcs: SearchPiece[] = [0, 1, 2, 3].map((k) => {
+      const a0 = Math.PI - (k * Math.PI) / 4, a1 = a0 - Math.PI / 4;
+      const [ax, ay, bx, by] = [10 + 10 * Math.cos(a0), 10 * Math.sin(a0), 10 + 10 * Math.cos(a1), 10 * Math.sin(a1)];
+      return { ax, ay, bx, by, circle: { cx: 10, cy: 0, r: 10, ccw: false, span: [ax, ay, bx, by] } };
+    });
+    const lines = (pts: [number, number][]): SearchPiece[] => pts.slice(1).map(([bx, by], k) => ({ ax: pts[k]![0], ay: pts[k]![1], bx, by, circle: null }));
+    // Nearest from (10, 13): the arcs' top (10, 10) at 3, though their chord is 13 away and the line
+    // y = 20 (in the other run) is 7 away.
+    const far = createOutlineDistance({ pieces: [...arcs, ...lines([[20, 0], [30, 0], [30, 20], [-10, 20], [0, 0]])], deviationMm: 0 });
+    const w = far.width(10, 13);
+    expect(w.outer - w.width).toBeCloseTo(3, 12);
+    // Farthest from (10, −30): the arcs' top at 40, though their chord's ends are 31.6 away and the
+    // other run (lines 3 mm above the chord) reaches 34.5.
+    const low = createOutlineDistance({ pieces: [...arcs, ...lines([[20, 0], [20, 3], [10, 3], [0, 3], [0, 0]])], deviationMm: 0 });
+    expect(low.width(10, -30).outer).toBeCloseTo(40, 12);
   });
 });

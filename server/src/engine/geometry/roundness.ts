@@ -133,7 +133,7 @@ export interface SearchPiece {
 }
 
 /** The outline as search pieces, and the largest distance between it and the contour (δ). */
-interface SearchOutline {
+export interface SearchOutline {
   readonly pieces: readonly SearchPiece[];
   readonly deviationMm: number;
 }
@@ -538,7 +538,7 @@ export function buildChordTree(pieces: readonly SearchPiece[]) {
  * far from the cells near its centre, where boxes of pieces (axis-aligned, as wide as a diagonal piece
  * is long) separate little and the chords' strips separate well.
  */
-function createOutlineDistance(outline: SearchOutline) {
+export function createOutlineDistance(outline: SearchOutline) {
   const pieces = outline.pieces, n = pieces.length;
   const index = new Flatbush(Math.max(1, n));
   for (const p of pieces) index.add(...pieceBox(p));

@@ -88,7 +88,7 @@ export function renderJson(files: readonly FileReport[]): string {
       units: { declared: result.units.declared, mmPerUnit: result.units.mmPerUnit, assumed: result.units.assumed },
       contours: result.contours.map((c) => toJsonContour(c, lines)),
       summary: result.summary,
-      parts: result.parts.map((p) => ({ outer: p.outer, holes: p.holes, netAreaMm2: p.netAreaMm2, holesTurnOpposite: p.orientationConsistent })),
+      parts: result.parts,
       problems: result.findings.map((f) => toJsonProblem(f, lines)),
     };
   });

@@ -295,7 +295,7 @@ export interface Part {
   /** |area of the outer boundary| − Σ |area of each hole| (mm²). */
   readonly netAreaMm2: number;
   /** Every hole turns the other way from the outer boundary (information only; null when an orientation is undefined). */
-  readonly orientationConsistent: boolean | null;
+  readonly holesTurnOpposite: boolean | null;
 }
 
 export interface AnalysisResult {

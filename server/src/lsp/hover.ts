@@ -75,12 +75,14 @@ function deficit(metrics: ContourMetrics): string {
  *  the outer boundary of a part with holes, their number and the part's net area. */
 function describeNesting(entry: CardSource, result: AnalysisFigures): string {
   const { geometry: g, metrics } = entry;
-  const part = result.parts.find((p) => p.outer === entry.contour.index);
-  const holes = !part || part.holes.length === 0 ? ''
-    : `, ${part.holes.length === 1 ? '1 hole' : `${part.holes.length} holes`}, part net area ${formatNumber(part.netAreaMm2)} mm²`;
-  if (g.parent === null) return metrics.closed ? `outer boundary${holes}` : 'not inside any closed contour';
+  const holes = () => {
+    const part = result.parts.find((p) => p.outer === entry.contour.index);
+    if (!part || part.holes.length === 0) return '';
+    return `, ${part.holes.length === 1 ? '1 hole' : `${part.holes.length} holes`}, part net area ${formatNumber(part.netAreaMm2)} mm²`;
+  };
+  if (g.parent === null) return metrics.closed ? `outer boundary${holes()}` : 'not inside any closed contour';
   if (!metrics.closed) return `inside contour #${g.parent}`;
-  if (g.depth % 2 === 0) return `island inside contour #${g.parent}${holes}`;
+  if (g.depth % 2 === 0) return `island inside contour #${g.parent}${holes()}`;
   const outer = result.contours.find((c) => c.contour.index === g.parent)?.metrics.orientation ?? null;
   const turn = metrics.orientation === null || outer === null ? ''
     : metrics.orientation === outer ? `, turning the same way (${outer})` : `, turning the other way (${metrics.orientation} in ${outer})`;

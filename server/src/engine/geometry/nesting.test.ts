@@ -47,7 +47,7 @@ describe('getNesting and getFileSummary', () => {
     const n = getNesting(cs);
     expect(n.parent).toEqual([null, 0, 1, null]);
     expect(n.depth).toEqual([0, 1, 2, 0]);
-    expect(n.parts.map((p) => [p.outer, p.holes, p.netAreaMm2, p.orientationConsistent])).toEqual([
+    expect(n.parts.map((p) => [p.outer, p.holes, p.netAreaMm2, p.holesTurnOpposite])).toEqual([
       [0, [1], 64, true],
       [2, [], 4, true],
       [3, [], 1, true],
@@ -57,7 +57,7 @@ describe('getNesting and getFileSummary', () => {
   });
   it('flags a hole that turns the same way as its outline (orientation consistency, information only)', () => {
     const n = getNesting(analyse('<path d="M0 0H10V10H0Z"/><path d="M2 2H8V8H2Z"/>'));
-    expect(n.parts[0]!.orientationConsistent).toBe(false);
+    expect(n.parts[0]!.holesTurnOpposite).toBe(false);
   });
   it('puts a circle hole inside a square and an open line inside both (parent of an open contour)', () => {
     const n = getNesting(analyse('<rect x="0" y="0" width="20" height="20"/><circle cx="10" cy="10" r="5"/><path d="M9 10H11"/>'));

@@ -90,7 +90,7 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
       outer: contours[i]!.contour.index,
       holes: holes.map((h) => contours[h]!.contour.index),
       netAreaMm2: area(i) - holes.reduce((s, h) => s + area(h), 0),
-      orientationConsistent: consistent,
+      holesTurnOpposite: consistent,
     });
   }
   // Positions to contour indices, in place.

@@ -533,8 +533,8 @@ export function buildChordTree(pieces: readonly SearchPiece[]) {
 /**
  * Distance queries on an outline, with the same values as scanning every piece: the nearest and the
  * farthest pieces are found by depth-first descents of a chord tree (`buildChordTree`), the more
- * promising child first, which skip a run when its bound cannot beat the pieces already held; inside (even-odd) by a flatbush query of the
- * pieces crossing the ray to the right of the point. On a near-circle every piece is almost equally
+ * promising child first, which skip a run when its bound cannot beat the pieces already held; inside
+ * (even-odd) by a flatbush query of the pieces crossing the ray to the right of the point. On a near-circle every piece is almost equally
  * far from the cells near its centre, where boxes of pieces (axis-aligned, as wide as a diagonal piece
  * is long) separate little and the chords' strips separate well.
  */

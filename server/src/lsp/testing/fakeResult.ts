@@ -127,7 +127,7 @@ export function partsOf(contours: readonly ContourResult[]): Part[] {
       outer: outer.contour.index,
       holes: holes.map((h) => h.contour.index),
       netAreaMm2: (outer.metrics.areaMm2.value ?? 0) - holes.reduce((s, h) => s + (h.metrics.areaMm2.value ?? 0), 0),
-      orientationConsistent: turns.includes(null) ? null : turns.slice(1).every((t) => t !== turns[0]),
+      holesTurnOpposite: turns.includes(null) ? null : turns.slice(1).every((t) => t !== turns[0]),
     };
   });
 }

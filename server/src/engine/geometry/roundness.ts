@@ -29,6 +29,7 @@
  */
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
+import { getConvexContourHull } from './convexContour';
 import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
 import { getVectorLength } from './length';
@@ -885,9 +886,11 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   const bonnesen: Measured = selfCrossing
     ? { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' }
     : deficit.value === null ? deficit : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
+  // A contour that turns one way is its own hull, in closed form (convexContour.ts).
+  const convex = selfCrossing ? null : getConvexContourHull(contour, size);
   if (!metrics.closed || size === 0) {
     // Only the hull's measures: no polyline or hull vertices are kept.
-    const hull = toContourHull(getContourHullMeasures(contour, flatteningMm), metrics, selfCrossing);
+    const hull = toContourHull(convex ?? getContourHullMeasures(contour, flatteningMm), metrics, selfCrossing);
     const why = metrics.closed ? NO_EXTENT : NOT_CLOSED;
     if (lastOpen?.inradius !== why || lastOpen.bonnesenBoundMm !== bonnesen || lastOpen.selfCrossing !== selfCrossing) {
       lastOpen = Object.freeze({ inradius: why, circumradius: why, minZone: why, bonnesenBoundMm: bonnesen, radiusGapMm: why, selfCrossing, windingSquaredAreaMm2: why });
@@ -896,7 +899,7 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   }
   const poly = getTransientPolyline(contour, flatteningMm);
   const hullFigures = getPolylineHull(poly);
-  const hull = toContourHull(hullFigures, metrics, selfCrossing);
+  const hull = toContourHull(convex ?? hullFigures, metrics, selfCrossing);
   const delta = poly.deviationMm;
   const mec = getSmallestEnclosingCircle(hullFigures.points);
   const circumradius = toCircle(mec.r, mec.x, mec.y, delta);

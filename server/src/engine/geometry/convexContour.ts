@@ -1,0 +1,165 @@
+/**
+ * The hull of a contour that turns one way, in closed form.
+ *
+ * A closed curve whose tangent turns monotonically, through one full turn in all, is convex and
+ * bounds a convex region [src: do Carmo, *Differential Geometry of Curves and Surfaces*, 1976, §1-7
+ * (a closed plane curve with rotation index 1 and curvature of one sign is convex; corners count as
+ * turns) — from memory]. Such a contour is its own hull: the hull's area is the contour's area and
+ * its perimeter the contour's length, exact (Green's theorem and exact lengths, area.ts and
+ * length.ts) where flattening (hull.ts) leaves an error of δ·P. An open contour's hull is that of the
+ * closed curve its chord from end to start completes, since the chord lies in the hull.
+ *
+ * Lines and arcs only (an arc of an ellipse turns one way: the sign of sweep·(U × V)); a Bézier gives
+ * up, and so do joints turning against the others by more than MAX_KINK_RAD in all, a cusp, or a
+ * turning number other than one. Turns are computed from tangents in floating point, so a joint where
+ * two pieces meet tangentially (a rounded corner) may come out a hair concave; such kinks, each
+ * widened by its rounding allowance, add up to E, and gaps between consecutive pieces shorter than
+ * JOINT_GAP_RELATIVE of the size (arc ends rounded away from a line's end) are taken as joints and
+ * add up to G. Then, with P the length of the closed curve [derived here]: between two points where
+ * the curve leaves and meets its hull, the tangent stays within E of the hull edge's direction, so
+ * the curve there lies within ℓ·sin E + G of that edge (ℓ the length between them) and is longer than
+ * it by at most ℓ·E²/2 + 2G. Hence the hull's area lies in [A, A + P²·sin E / 4 + P·G] and its
+ * perimeter in [P − P·E²/2 − 2G, P]; both are the stated bounds (0 when no joint needed either).
+ */
+import type { Contour } from '../types';
+import { CompensatedSum, getSegmentArea } from './area';
+import type { HullMeasures } from './hull';
+import { getSegmentLength, getVectorLength } from './length';
+
+/** Largest concave turn (rad) at a joint still taken as rounding of a tangential joint; a larger one
+ *  is a notch, and the contour goes to the flattened hull. [common practice, no source] */
+export const MAX_KINK_RAD = 1e-9;
+/** Gaps between consecutive pieces up to this fraction of the contour's size (bbox diagonal) are
+ *  joints; longer ones are chords of the curve. [common practice, no source] */
+export const JOINT_GAP_RELATIVE = 1e-7;
+
+const EPS = 2 ** -52;
+const TWO_PI = 2 * Math.PI;
+
+/** Walks a contour's tangents, joint by joint, for one orientation and the other at once. */
+class TurnWalk {
+  /** Sum of every turn (joints and arcs), signed: ±2π for a convex contour. */
+  total = 0;
+  /** Sum of allowance − turn over the joints turning against the positive / negative orientation. */
+  againstPositive = 0;
+  againstNegative = 0;
+  /** An arc or a joint turns clearly against that orientation. */
+  badPositive = false;
+  badNegative = false;
+  cusp = false;
+  private started = false;
+  private firstX = 0; private firstY = 0; private firstNoise = 0;
+  private lastX = 0; private lastY = 0; private lastNoise = 0;
+
+  /** A piece with these start and end tangents (any length) and the rounding noise (rad) of their directions. */
+  piece(sx: number, sy: number, ex: number, ey: number, noise: number): void {
+    if (this.started) this.joint(this.lastX, this.lastY, this.lastNoise, sx, sy, noise);
+    else { this.started = true; this.firstX = sx; this.firstY = sy; this.firstNoise = noise; }
+    this.lastX = ex; this.lastY = ey; this.lastNoise = noise;
+  }
+
+  /** An arc's own turn, of the given sign. */
+  arcTurn(turn: number): void {
+    this.total += turn;
+    if (turn > 0) this.badNegative = true;
+    else if (turn < 0) this.badPositive = true;
+  }
+
+  /** Closes the walk: the joint from the last piece back to the first. */
+  close(): void {
+    if (this.started) this.joint(this.lastX, this.lastY, this.lastNoise, this.firstX, this.firstY, this.firstNoise);
+  }
+
+  private joint(ax: number, ay: number, an: number, bx: number, by: number, bn: number): void {
+    const turn = Math.atan2(ax * by - ay * bx, ax * bx + ay * by);
+    if (Math.abs(turn) > Math.PI - 1e-6) this.cusp = true;
+    this.total += turn;
+    const allowance = an + bn + 4 * EPS;
+    if (turn < allowance) {
+      this.againstPositive += allowance - turn;
+      if (turn < -MAX_KINK_RAD) this.badPositive = true;
+    }
+    if (-turn < allowance) {
+      this.againstNegative += allowance + turn;
+      if (turn > MAX_KINK_RAD) this.badNegative = true;
+    }
+  }
+}
+
+/**
+ * The hull measures of a contour of lines and arcs that turns one way (see the module comment), or
+ * null when it has a Bézier, does not turn one way or has no extent. `sizeMm` is its size (bbox
+ * diagonal); a self-crossing contour is never convex, and the caller need not ask.
+ */
+export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeasures | null {
+  if (!(sizeMm > 0) || !Number.isFinite(sizeMm)) return null;
+  const { segments, startX: ox, startY: oy } = contour;
+  const jointGap = JOINT_GAP_RELATIVE * sizeMm;
+  const walk = new TurnWalk();
+  const length = new CompensatedSum(), area = new CompensatedSum();
+  let gaps = 0;
+  let endX = ox, endY = oy;
+  /** The curve from the last end to (x, y): a joint when short, else a chord of the curve. */
+  const bridge = (x: number, y: number) => {
+    const dx = x - endX, dy = y - endY, g = getVectorLength(dx, dy);
+    if (g === 0) return;
+    length.add(g);
+    area.add(((endX - ox) * (y - oy) - (endY - oy) * (x - ox)) / 2);
+    if (g <= jointGap) gaps += g;
+    else walk.piece(dx, dy, dx, dy, 4 * EPS);
+  };
+  for (const s of segments) {
+    if (s.kind === 'quad' || s.kind === 'cubic') return null;
+    bridge(s.x0, s.y0);
+    endX = s.x1; endY = s.y1;
+    if (s.kind === 'line') {
+      const dx = s.x1 - s.x0, dy = s.y1 - s.y0;
+      if (dx === 0 && dy === 0) continue;
+      length.add(getVectorLength(dx, dy));
+      area.add(getSegmentArea(s, ox, oy));
+      walk.piece(dx, dy, dx, dy, 4 * EPS);
+      if (walk.badPositive && walk.badNegative) return null;
+      continue;
+    }
+    if (s.sweep === 0) continue;
+    const { ux, uy, vx, vy, sweep } = s;
+    const cross = ux * vy - uy * vx, extent = getVectorLength(ux, uy) + getVectorLength(vx, vy);
+    if (!(Math.abs(cross) > 1e-12 * extent * extent) || Math.abs(sweep) > TWO_PI) return null;
+    // Tangents P′(θ) = −U sin θ + V cos θ, in the direction of travel.
+    const t0 = s.theta0, t1 = t0 + sweep, dir = Math.sign(sweep);
+    const sx = dir * (vx * Math.cos(t0) - ux * Math.sin(t0)), sy = dir * (vy * Math.cos(t0) - uy * Math.sin(t0));
+    const ex = dir * (vx * Math.cos(t1) - ux * Math.sin(t1)), ey = dir * (vy * Math.cos(t1) - uy * Math.sin(t1));
+    const slow = Math.min(getVectorLength(sx, sy), getVectorLength(ex, ey));
+    // Rounding of the tangents: the products and sums (a few ε of |U| + |V|), and θ1's rounding moving
+    // the end along the arc.
+    const noise = 8 * EPS * (extent / slow) * (1 + (Math.abs(t0) + Math.abs(sweep)) * (extent / slow));
+    if (!(noise < MAX_KINK_RAD)) return null;
+    // The tangent turns monotonically by |sweep| in the parameter: π over a half turn of it, so the
+    // angle between the end tangents is the turn for |sweep| ≤ π and its complement beyond.
+    const between = Math.abs(Math.atan2(sx * ey - sy * ex, sx * ex + sy * ey));
+    const magnitude = Math.abs(sweep) <= Math.PI ? between : TWO_PI - between;
+    length.add(getSegmentLength(s));
+    area.add(getSegmentArea(s, ox, oy));
+    walk.piece(sx, sy, ex, ey, noise);
+    walk.arcTurn(Math.sign(sweep) * Math.sign(cross) * magnitude);
+    // Turns clearly both ways: no need to walk the rest (a wavy outline of a million pieces stops early).
+    if (walk.badPositive && walk.badNegative) return null;
+  }
+  bridge(ox, oy);
+  walk.close();
+  if (walk.cusp || !(Math.abs(Math.abs(walk.total) - TWO_PI) < 1e-6)) return null;
+  const positive = walk.total > 0;
+  if (positive ? walk.badPositive : walk.badNegative) return null;
+  const against = positive ? walk.againstPositive : walk.againstNegative;
+  // So many near-tangential joints that their allowances add up: the flattened hull bounds it better.
+  if (!(against < MAX_KINK_RAD)) return null;
+  const p = length.value, a = Math.abs(area.value);
+  if (!Number.isFinite(p) || !Number.isFinite(a)) return null;
+  const perimeterErrorMm = (p * against * against) / 2 + 2 * gaps;
+  return {
+    areaMm2: a,
+    perimeterMm: p - perimeterErrorMm,
+    areaErrorMm2: (p * p * Math.sin(Math.min(against, Math.PI / 2))) / 4 + p * gaps,
+    perimeterErrorMm,
+  };
+}

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { arc, circleArcs, contourFromSegments, ellipseArc, fourCubicCircle, line, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
+import { arc, circleArcs, contourFromSegments, cubic, ellipseArc, fourCubicCircle, line, quad, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import type { Arc, Contour, Segment } from '../types';
 import { getConvexContourHull, MAX_KINK_RAD } from './convexContour';
 import { getContourHullMeasures } from './hull';
@@ -100,6 +100,23 @@ describe('getConvexContourHull: contours that turn one way are their own hull', 
     expect(hull.perimeterMm).toBeCloseTo(10 + 15 + 15 + 10 + 2.5 * Math.PI, 12);
   });
 
+  it('gives the four-cubic circle its own area and length, A = 3.142472332656507 and L = 6.284066792295423 for r = 1 (REFERENCES.md §2.10)', () => {
+    for (const r of [1, 25]) {
+      const hull = hullOf(contourFromSegments(fourCubicCircle(3, 4, r), true))!;
+      expect(hull.areaMm2 / (r * r)).toBeCloseTo(3.142472332656506927, 12);
+      // Bézier lengths carry BEZIER_LENGTH_REL_TOL = 1e-9; the true perimeter lies in [value, value + error].
+      expect(hull.perimeterErrorMm).toBeLessThanOrEqual(2.1e-9 * 6.3 * r);
+      expect(6.284066792295422605 * r).toBeGreaterThanOrEqual(hull.perimeterMm - 1e-12 * r);
+      expect(6.284066792295422605 * r).toBeLessThanOrEqual(hull.perimeterMm + hull.perimeterErrorMm + 1e-12 * r);
+    }
+  });
+
+  it('gives a D shape of a quadratic Bézier and its chord the area (2/3)·base·height (Archimedes, quadrature of the parabola)', () => {
+    const hull = hullOf(contourFromSegments([quad(0, 0, 2, 4, 4, 0), line(4, 0, 0, 0)], false))!;
+    // Parabolic segment under the apex (2, 2): (2/3)·4·2.
+    expect(hull.areaMm2).toBeCloseTo(16 / 3, 12);
+  });
+
   it('agrees with the flattened hull within both bounds on random convex polygons, either way round (shoelace formula; fast-check, seed 83)', () => {
     const polygon = fc.tuple(fc.array(fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), { minLength: 3, maxLength: 40 }),
       fc.double({ min: 0.1, max: 1e4, noNaN: true }), fc.boolean());
@@ -126,14 +143,44 @@ describe('getConvexContourHull: contours that turn one way are their own hull', 
     expect(declined).toBeLessThan(15);
   });
 
-  it('declines every contour that has a notch, a Bézier, a cusp or turns twice', () => {
+  it('agrees with the flattened hull within both bounds where the edges of random convex polygons bow outwards as quadratic Béziers (Andrew\'s hull of the flattening; fast-check, seed 89)', () => {
+    const shape = fc.tuple(fc.array(fc.integer({ min: 0, max: 3599 }), { minLength: 3, maxLength: 12 }),
+      fc.double({ min: 0, max: 0.3, noNaN: true }));
+    let taken = 0, declined = 0;
+    fc.assert(fc.property(shape, ([angles, bow]) => {
+      // Vertices on a circle at tenths of a degree, in order.
+      const pts = [...new Set(angles)].sort((x, y) => x - y)
+        .map((d) => [100 * Math.cos((d * Math.PI) / 1800), 100 * Math.sin((d * Math.PI) / 1800)] as const);
+      if (pts.length < 3 || shoelace(pts).area < 1) return;
+      // Each edge a quadratic whose control point sits `bow` of the edge's length outside its midpoint.
+      const segments = pts.map(([x0, y0], i) => {
+        const [x1, y1] = pts[(i + 1) % pts.length]!;
+        return quad(x0, y0, (x0 + x1) / 2 + bow * (y1 - y0), (y0 + y1) / 2 - bow * (x1 - x0), x1, y1);
+      });
+      const c = contourFromSegments(segments, true);
+      const hull = hullOf(c);
+      if (!hull) { declined++; return; }
+      taken++;
+      const flat = getContourHullMeasures(c, 1e-5 * size(c));
+      // Both intervals hold the true hull's figures, so they meet.
+      expect(hull.areaMm2).toBeLessThanOrEqual(flat.areaMm2 + flat.areaErrorMm2 + 1e-9);
+      expect(flat.areaMm2).toBeLessThanOrEqual(hull.areaMm2 + hull.areaErrorMm2 + 1e-9);
+      expect(hull.perimeterMm).toBeLessThanOrEqual(flat.perimeterMm + flat.perimeterErrorMm + 1e-9);
+      expect(flat.perimeterMm).toBeLessThanOrEqual(hull.perimeterMm + hull.perimeterErrorMm + 1e-9);
+    }), { seed: 89, numRuns: 300 });
+    // Declining is safe but should be the exception: a joint turns against the others only where a bow outruns the corner's turn.
+    expect(taken).toBeGreaterThan(declined);
+  });
+
+  it('declines every contour that has a notch, a Bézier it cannot tell, a cusp or turns twice', () => {
     const cases: [string, Contour][] = [
       ['an L-shaped hexagon', contourFromSegments(polygonSegments([[0, 0], [2, 0], [2, 1], [1, 1], [1, 2], [0, 2]], true), true)],
       // The top edge is an arc of the circle about (1, 3) through (2, 2) and (0, 2), bulging inwards.
       ['a square whose top edge is an arc bulging inwards', contourFromSegments([
         line(0, 0, 2, 0), line(2, 0, 2, 2), arc(1, 3, Math.SQRT2, 0, 0, Math.SQRT2, -Math.PI / 4, -Math.PI / 2), line(0, 2, 0, 0),
       ], true)],
-      ['the four-cubic circle', contourFromSegments(fourCubicCircle(0, 0, 5), true)],
+      ['an S-shaped cubic closed by a line', contourFromSegments([cubic(0, 0, 1, 1, 2, -1, 3, 0), line(3, 0, 0, 0)], true)],
+      ['a cubic whose control polygon turns more than a half turn, closed by a line', contourFromSegments([cubic(0, 0, 2, 0, 2, 2, 0, 1), line(0, 1, 0, 0)], true)],
       ['a circle drawn twice round', contourFromSegments([...circleArcs(0, 0, 5, 1), ...circleArcs(0, 0, 5, 1)], true)],
       ['a there-and-back line', contourFromSegments([line(0, 0, 5, 0), line(5, 0, 0, 0)], true)],
       [`a square with a reflex vertex of 2e-6 rad (above MAX_KINK_RAD = ${MAX_KINK_RAD})`, contourFromSegments(polygonSegments(

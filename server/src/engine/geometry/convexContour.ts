@@ -5,12 +5,14 @@
  * bounds a convex region [src: do Carmo, *Differential Geometry of Curves and Surfaces*, 1976, §1-7
  * (a closed plane curve with rotation index 1 and curvature of one sign is convex; corners count as
  * turns) — from memory]. Such a contour is its own hull: the hull's area is the contour's area and
- * its perimeter the contour's length, exact (Green's theorem and exact lengths, area.ts and
- * length.ts) where flattening (hull.ts) leaves an error of δ·P. An open contour's hull is that of the
+ * its perimeter the contour's length, in closed form (Green's theorem, area.ts; exact lengths of lines
+ * and arcs, Béziers' within BEZIER_LENGTH_REL_TOL, length.ts) where flattening (hull.ts) leaves an
+ * error of δ·P. An open contour's hull is that of the
  * closed curve its chord from end to start completes, since the chord lies in the hull.
  *
- * Lines and arcs only (an arc of an ellipse turns one way: the sign of sweep·(U × V)); a Bézier gives
- * up, and so do joints turning against the others by more than MAX_KINK_RAD in all, a cusp, or a
+ * An arc of an ellipse turns one way (the sign of sweep·(U × V)); a Bézier is taken when its control
+ * polygon turns one way through less than a half turn (addBezier), else the contour gives up, as it
+ * does for joints turning against the others by more than MAX_KINK_RAD in all, a cusp, or a
  * turning number other than one. Turns are computed from tangents in floating point, so a joint where
  * two pieces meet tangentially (a rounded corner) may come out a hair concave; such kinks, each
  * widened by its rounding allowance, add up to E, and gaps between consecutive pieces shorter than
@@ -19,12 +21,14 @@
  * the curve leaves and meets its hull, the tangent stays within E of the hull edge's direction, so
  * the curve there lies within ℓ·sin E + G of that edge (ℓ the length between them) and is longer than
  * it by at most ℓ·E²/2 + 2G. Hence the hull's area lies in [A, A + P²·sin E / 4 + P·G] and its
- * perimeter in [P − P·E²/2 − 2G, P]; both are the stated bounds (0 when no joint needed either).
+ * perimeter in [P − P·E²/2 − 2G, P], widened by the Béziers' length tolerance; both are the stated
+ * bounds (0 for lines and arcs when no joint needed either).
  */
-import type { Contour } from '../types';
+import type { Contour, Cubic, Quad } from '../types';
 import { CompensatedSum, getSegmentArea } from './area';
 import type { HullMeasures } from './hull';
-import { getSegmentLength, getVectorLength } from './length';
+import { getSegmentLength, getSegmentLengthEstimate, getVectorLength } from './length';
+import { BEZIER_LENGTH_REL_TOL } from './tolerances';
 
 /** Largest concave turn (rad) at a joint still taken as rounding of a tangential joint; a larger one
  *  is a notch, and the contour goes to the flattened hull. [common practice, no source] */
@@ -86,9 +90,48 @@ class TurnWalk {
   }
 }
 
+/** Bézier control turns up to this (rad) are taken as rounding of collinear control points. */
+const STRAIGHT_RAD = 1e-12;
+
 /**
- * The hull measures of a contour of lines and arcs that turns one way (see the module comment), or
- * null when it has a Bézier, does not turn one way or has no extent. `sizeMm` is its size (bbox
+ * Walks a Bézier's control polygon: its steps (nonzero differences of consecutive control points) as
+ * pieces, so the walk sees the turns between them. Its hodograph is the Bézier of those steps, so when
+ * they all turn one way through less than a half turn, the curve's tangent stays in their cone and
+ * turns monotonically from the first to the last [src: convex-hull property of Bézier curves applied
+ * to the derivative, Farin, *Curves and Surfaces for CAGD*, 5th ed. 2002, §4.3 and §5.3 — from
+ * memory]: then the steps' turns are the curve's. False when they do not (an inflection may lie
+ * between): the contour is left to the flattened hull.
+ */
+function addBezier(s: Quad | Cubic, walk: TurnWalk): boolean {
+  const xs = s.kind === 'quad' ? [s.x0, s.x1, s.x2] : [s.x0, s.x1, s.x2, s.x3];
+  const ys = s.kind === 'quad' ? [s.y0, s.y1, s.y2] : [s.y0, s.y1, s.y2, s.y3];
+  let px = 0, py = 0, started = false, span = 0, sign = 0;
+  for (let i = 1; i < xs.length; i++) {
+    const dx = xs[i]! - xs[i - 1]!, dy = ys[i]! - ys[i - 1]!;
+    if (dx === 0 && dy === 0) continue;
+    if (started) {
+      const turn = Math.atan2(px * dy - py * dx, px * dx + py * dy);
+      if (Math.abs(turn) > STRAIGHT_RAD) {
+        if (sign !== 0 && Math.sign(turn) !== sign) return false;
+        sign = Math.sign(turn);
+      }
+      span += turn;
+    }
+    started = true;
+    px = dx; py = dy;
+  }
+  if (!(Math.abs(span) < Math.PI - 1e-6)) return false;
+  for (let i = 1; i < xs.length; i++) {
+    const dx = xs[i]! - xs[i - 1]!, dy = ys[i]! - ys[i - 1]!;
+    if (dx !== 0 || dy !== 0) walk.piece(dx, dy, dx, dy, 4 * EPS);
+  }
+  return true;
+}
+
+/**
+ * The hull measures of a contour that turns one way (see the module comment), or null when it does
+ * not (or its turns cannot be told: a Bézier whose control polygon does not turn one way) or has no
+ * extent. `sizeMm` is its size (bbox
  * diagonal); a self-crossing contour is never convex, and the caller need not ask.
  */
 export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeasures | null {
@@ -97,7 +140,7 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
   const jointGap = JOINT_GAP_RELATIVE * sizeMm;
   const walk = new TurnWalk();
   const length = new CompensatedSum(), area = new CompensatedSum();
-  let gaps = 0;
+  let gaps = 0, bezierLength = 0;
   let endX = ox, endY = oy;
   /** The curve from the last end to (x, y): a joint when short, else a chord of the curve. */
   const bridge = (x: number, y: number) => {
@@ -109,8 +152,18 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
     else walk.piece(dx, dy, dx, dy, 4 * EPS);
   };
   for (const s of segments) {
-    if (s.kind === 'quad' || s.kind === 'cubic') return null;
     bridge(s.x0, s.y0);
+    if (s.kind === 'quad' || s.kind === 'cubic') {
+      endX = s.kind === 'quad' ? s.x2 : s.x3; endY = s.kind === 'quad' ? s.y2 : s.y3;
+      if (!addBezier(s, walk)) return null;
+      const estimate = getSegmentLengthEstimate(s);
+      if (estimate.depthCapped) return null;
+      length.add(estimate.value);
+      bezierLength += estimate.value;
+      area.add(getSegmentArea(s, ox, oy));
+      if (walk.badPositive && walk.badNegative) return null;
+      continue;
+    }
     endX = s.x1; endY = s.y1;
     if (s.kind === 'line') {
       const dx = s.x1 - s.x0, dy = s.y1 - s.y0;
@@ -155,10 +208,12 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
   if (!(against < MAX_KINK_RAD)) return null;
   const p = length.value, a = Math.abs(area.value);
   if (!Number.isFinite(p) || !Number.isFinite(a)) return null;
-  const perimeterErrorMm = (p * against * against) / 2 + 2 * gaps;
+  // Bézier lengths are known to BEZIER_LENGTH_REL_TOL either way.
+  const lengthError = BEZIER_LENGTH_REL_TOL * bezierLength;
+  const perimeterErrorMm = (p * against * against) / 2 + 2 * gaps + 2 * lengthError;
   return {
     areaMm2: a,
-    perimeterMm: p - perimeterErrorMm,
+    perimeterMm: p + lengthError - perimeterErrorMm,
     areaErrorMm2: (p * p * Math.sin(Math.min(against, Math.PI / 2))) / 4 + p * gaps,
     perimeterErrorMm,
   };

@@ -29,6 +29,7 @@
  */
 import Flatbush from 'flatbush';
 import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
+import { getContourCircle } from './circleContour';
 import { getConvexContourHull } from './convexContour';
 import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
@@ -859,6 +860,7 @@ const undef = (reason: string) => ({ value: null, reason }) as const;
  *  drawing of loose entities has hundreds of thousands of open contours). Results are read only. */
 const NOT_CLOSED = Object.freeze(undef('the contour is not closed'));
 const NO_EXTENT = Object.freeze(undef('the contour has no extent'));
+const SIMPLE_WINDING = Object.freeze(undef('defined for self-crossing contours only; for a simple contour it equals the area'));
 
 /** The last roundness figures of an open contour: the next one with the same reason and Bonnesen
  *  figure (usually the measures' one shared "open contour" object) shares them. */
@@ -897,13 +899,25 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
     }
     return { hull, roundness: lastOpen };
   }
+  const circle = convex && getContourCircle(contour, size);
+  if (circle) {
+    // A whole circle (circleContour.ts): ρ = R = r and a zone of 0, each within its spread d.
+    const { cx, cy, r, deviationMm: d } = circle;
+    return {
+      hull: toContourHull(convex, metrics, false),
+      roundness: {
+        inradius: toCircle(r, cx, cy, d), circumradius: toCircle(r, cx, cy, d), minZone: toCircle(0, cx, cy, 2 * d),
+        bonnesenBoundMm: bonnesen, radiusGapMm: { value: 0 }, selfCrossing: false, windingSquaredAreaMm2: SIMPLE_WINDING,
+      },
+    };
+  }
   const poly = getTransientPolyline(contour, flatteningMm);
   const hullFigures = getPolylineHull(poly);
   const hull = toContourHull(convex ?? hullFigures, metrics, selfCrossing);
   const delta = poly.deviationMm;
   const mec = getSmallestEnclosingCircle(hullFigures.points);
   const circumradius = toCircle(mec.r, mec.x, mec.y, delta);
-  let windingSquared: Measured = undef('defined for self-crossing contours only; for a simple contour it equals the area');
+  let windingSquared: Measured = SIMPLE_WINDING;
   if (selfCrossing) {
     if (poly.xs.length > MAX_WINDING_INTEGRAL_VERTICES) windingSquared = undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`);
     else {

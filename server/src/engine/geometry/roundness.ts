@@ -352,19 +352,26 @@ const concavity = (D: number, ux: number, uy: number, h: number) => 1 / (2 * (D 
  * the boundary as well.
  */
 function maxConcaveQuadratic(k: number, gx: number, gy: number, m11: number, m12: number, m22: number, h: number): number {
-  const q = (ex: number, ey: number) => k + gx * ex + gy * ey - (m11 * ex * ex + 2 * m12 * ex * ey + m22 * ey * ey);
-  const vertex = (lin: number, quad: number) => (quad > 0 ? Math.min(h, Math.max(-h, lin / (2 * quad))) : lin >= 0 ? h : -h);
   let best = -Infinity;
   for (let side = -h, k2 = 0; k2 < 2; k2++, side = h) {
-    best = Math.max(best, q(side, vertex(gy - 2 * m12 * side, m22)), q(vertex(gx - 2 * m12 * side, m11), side));
+    best = Math.max(best,
+      quadraticAt(k, gx, gy, m11, m12, m22, side, clampedVertex(gy - 2 * m12 * side, m22, h)),
+      quadraticAt(k, gx, gy, m11, m12, m22, clampedVertex(gx - 2 * m12 * side, m11, h), side));
   }
   const det = m11 * m22 - m12 * m12;
   if (det > 1e-12 * m11 * m22) {
     const ex = (m22 * gx - m12 * gy) / (2 * det), ey = (m11 * gy - m12 * gx) / (2 * det);
-    if (Math.abs(ex) <= h && Math.abs(ey) <= h) best = Math.max(best, q(ex, ey));
+    if (Math.abs(ex) <= h && Math.abs(ey) <= h) best = Math.max(best, quadraticAt(k, gx, gy, m11, m12, m22, ex, ey));
   }
   return best;
 }
+
+/** k + g·e − eᵀMe at e = (ex, ey). */
+const quadraticAt = (k: number, gx: number, gy: number, m11: number, m12: number, m22: number, ex: number, ey: number) =>
+  k + gx * ex + gy * ey - (m11 * ex * ex + 2 * m12 * ex * ey + m22 * ey * ey);
+
+/** The vertex of the parabola lin·t − quad·t² on [−h, h] (an end when it is linear). */
+const clampedVertex = (lin: number, quad: number, h: number) => (quad > 0 ? Math.min(h, Math.max(-h, lin / (2 * quad))) : lin >= 0 ? h : -h);
 
 /**
  * A linear function g ≥ the distance to the piece over the square cell (centre x, y, half-side h):
@@ -449,37 +456,39 @@ function circleGapUpperBound(inner: SearchPiece, outer: SearchPiece, x: number, 
  * max over the square (centre x0, y0, half-side h) of min_k g_k, exact: the maximum of this 2D
  * linear programme lies at a vertex, where two of {box sides, g_i = g_j} or three g are tight, and
  * every such point is tried (points just outside the box only raise the answer, which stays an
- * upper bound).
+ * upper bound). g_k(x, y) = rows[3k]·x + rows[3k + 1]·y + rows[3k + 2], k < m.
  */
 let lpA = new Float64Array(16), lpB = new Float64Array(16), lpC = new Float64Array(16);
-function maxOfMinLinear(gs: readonly (readonly number[])[], x0: number, y0: number, h: number): number {
+function maxOfMinLinear(rows: Float64Array, m: number, x0: number, y0: number, h: number): number {
   // Coordinates relative to the cell's centre: g(x0 + u, y0 + v) = a u + b v + (a x0 + b y0 + c).
-  const m = gs.length;
   if (lpA.length < m) { lpA = new Float64Array(2 * m); lpB = new Float64Array(2 * m); lpC = new Float64Array(2 * m); }
   const A = lpA, B = lpB, C = lpC;
-  for (let i = 0; i < m; i++) { const g = gs[i]!; A[i] = g[0]!; B[i] = g[1]!; C[i] = g[0]! * x0 + g[1]! * y0 + g[2]!; }
+  for (let i = 0; i < m; i++) { A[i] = rows[3 * i]!; B[i] = rows[3 * i + 1]!; C[i] = rows[3 * i]! * x0 + rows[3 * i + 1]! * y0 + rows[3 * i + 2]!; }
   const lim = h * (1 + 1e-9);
   let best = -Infinity;
-  const tryAt = (u: number, v: number) => {
-    if (!(Math.abs(u) <= lim && Math.abs(v) <= lim)) return;
-    let low = Infinity;
-    for (let i = 0; i < m; i++) { const g = A[i]! * u + B[i]! * v + C[i]!; if (g < low) { low = g; if (low <= best) return; } }
-    best = low;
-  };
-  tryAt(-h, -h); tryAt(h, -h); tryAt(-h, h); tryAt(h, h);
+  best = lpTry(-h, -h, best, m, lim); best = lpTry(h, -h, best, m, lim); best = lpTry(-h, h, best, m, lim); best = lpTry(h, h, best, m, lim);
   for (let i = 0; i < m; i++) {
     for (let j = i + 1; j < m; j++) {
       const da = A[i]! - A[j]!, db = B[i]! - B[j]!, dc = C[i]! - C[j]!;
-      if (db !== 0) { tryAt(-h, -(dc - da * h) / db); tryAt(h, -(dc + da * h) / db); }
-      if (da !== 0) { tryAt(-(dc - db * h) / da, -h); tryAt(-(dc + db * h) / da, h); }
+      if (db !== 0) { best = lpTry(-h, -(dc - da * h) / db, best, m, lim); best = lpTry(h, -(dc + da * h) / db, best, m, lim); }
+      if (da !== 0) { best = lpTry(-(dc - db * h) / da, -h, best, m, lim); best = lpTry(-(dc + db * h) / da, h, best, m, lim); }
       for (let k = j + 1; k < m; k++) {
         const ea = A[i]! - A[k]!, eb = B[i]! - B[k]!, ec = C[i]! - C[k]!;
         const det = da * eb - db * ea;
-        if (det !== 0) tryAt((-dc * eb + db * ec) / det, (-da * ec + dc * ea) / det);
+        if (det !== 0) best = lpTry((-dc * eb + db * ec) / det, (-da * ec + dc * ea) / det, best, m, lim);
       }
     }
   }
   return best;
+}
+
+/** maxOfMinLinear's candidate (u, v): min_k g_k there when inside the box and above `best`, else `best`. */
+function lpTry(u: number, v: number, best: number, m: number, lim: number): number {
+  if (!(Math.abs(u) <= lim && Math.abs(v) <= lim)) return best;
+  const A = lpA, B = lpB, C = lpC;
+  let low = Infinity;
+  for (let i = 0; i < m; i++) { const g = A[i]! * u + B[i]! * v + C[i]!; if (g < low) { low = g; if (low <= best) return best; } }
+  return low;
 }
 
 /** How many of the nearest pieces, and of the farthest, feed the linear-programme bound of a cell. */
@@ -552,21 +561,24 @@ export function createOutlineDistance(outline: SearchOutline) {
   const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
   // The descent's stack of nodes and their bounds: a pending sibling a level at most, so ~log₂ n entries.
   const stack = new Int32Array(128), stackBound = new Float64Array(128);
-  const near: number[] = [], nearD: number[] = [];
-  /** The nearest distance; `near` holds the `keep` nearest pieces, nearest first. */
+  /** The nearest pieces (nearCount of them, nearest first) and their distances. */
+  const near = new Int32Array(BOUND_NEAR), nearD = new Float64Array(BOUND_NEAR);
+  let nearCount = 0;
+  /** The nearest distance; `near` holds the `keep` (≤ BOUND_NEAR) nearest pieces, nearest first. */
   const nearest = (x: number, y: number, keep: number) => {
-    near.length = 0; nearD.length = 0;
+    nearCount = 0;
     if (n === 0) return Infinity;
     let top = 0;
     stack[top] = 0; stackBound[top++] = -Infinity;
     while (top > 0) {
       const k = stack[--top]!;
-      if (near.length === keep && stackBound[top]! >= nearD[keep - 1]!) continue;
+      if (nearCount === keep && stackBound[top]! >= nearD[keep - 1]!) continue;
       if (hi[k]! - lo[k]! <= CHORD_LEAF) {
         for (let i = lo[k]!; i < hi[k]!; i++) {
           const d = distToPiece(pieces[i]!, x, y);
-          if (near.length === keep && d >= nearD[keep - 1]!) continue;
-          let m = Math.min(near.length, keep - 1);
+          if (nearCount === keep && d >= nearD[keep - 1]!) continue;
+          let m = Math.min(nearCount, keep - 1);
+          if (nearCount < keep) nearCount++;
           near[m] = i; nearD[m] = d;
           while (m > 0 && nearD[m - 1]! > d) { near[m] = near[m - 1]!; nearD[m] = nearD[m - 1]!; near[m - 1] = i; nearD[m - 1] = d; m--; }
         }
@@ -590,22 +602,26 @@ export function createOutlineDistance(outline: SearchOutline) {
     }
     return odd;
   };
-  const far: [number, number, number][] = [], farPiece: number[] = [];
-  /** The farthest distance; `far` holds the BOUND_FAR farthest pieces' farthest points, farthest first. */
-  const farD: number[] = [];
+  /** The BOUND_FAR farthest pieces (farCount of them, farthest first), their distances and their
+   *  farthest points [distance, x, y]. */
+  const farPiece = new Int32Array(BOUND_FAR), farD = new Float64Array(BOUND_FAR);
+  const far: [number, number, number][] = [];
+  let farCount = 0;
+  /** The farthest distance; `far` holds the farthest pieces' farthest points, farthest first. */
   const farthest = (x: number, y: number) => {
-    far.length = 0; farD.length = 0; farPiece.length = 0;
+    farCount = 0;
     if (n === 0) return 0;
     let top = 0;
     stack[top] = 0; stackBound[top++] = Infinity;
     while (top > 0) {
       const k = stack[--top]!;
-      if (farD.length === BOUND_FAR && stackBound[top]! <= farD[BOUND_FAR - 1]!) continue;
+      if (farCount === BOUND_FAR && stackBound[top]! <= farD[BOUND_FAR - 1]!) continue;
       if (hi[k]! - lo[k]! <= CHORD_LEAF) {
         for (let i = lo[k]!; i < hi[k]!; i++) {
           const d = farthestDistance(pieces[i]!, x, y);
-          if (farD.length === BOUND_FAR && d <= farD[BOUND_FAR - 1]!) continue;
-          let m = Math.min(farD.length, BOUND_FAR - 1);
+          if (farCount === BOUND_FAR && d <= farD[BOUND_FAR - 1]!) continue;
+          let m = Math.min(farCount, BOUND_FAR - 1);
+          if (farCount < BOUND_FAR) farCount++;
           farD[m] = d; farPiece[m] = i;
           while (m > 0 && farD[m - 1]! < d) { farD[m] = farD[m - 1]!; farPiece[m] = farPiece[m - 1]!; farD[m - 1] = d; farPiece[m - 1] = i; m--; }
         }
@@ -619,13 +635,21 @@ export function createOutlineDistance(outline: SearchOutline) {
       stack[top] = first; stackBound[top++] = Math.min(bl, br);
       stack[top] = second; stackBound[top++] = Math.max(bl, br);
     }
-    for (const i of farPiece) far.push(farthestOnPiece(pieces[i]!, x, y));
+    for (let k = 0; k < farCount; k++) far[k] = farthestOnPiece(pieces[farPiece[k]!]!, x, y);
     return farD[0]!;
   };
+  /** The nearest pieces' linear bounds over the cell (nearBounds gives how many). */
+  const gs: Bound[] = [];
   const nearBounds = (x: number, y: number, h: number) => {
-    const gs: Bound[] = [];
-    for (const i of near) { const g = linearUpperBound(pieces[i]!, x, y, h); if (g) gs.push(g); }
-    return gs;
+    let count = 0;
+    for (let k = 0; k < nearCount; k++) { const g = linearUpperBound(pieces[near[k]!]!, x, y, h); if (g) gs[count++] = g; }
+    return count;
+  };
+  /** Rows of the linear programme of a cell (3 numbers each), grown as needed. */
+  let rows = new Float64Array(3 * 16);
+  const setRow = (k: number, a: number, b: number, c: number) => {
+    if (3 * k + 3 > rows.length) { const grown = new Float64Array(2 * rows.length); grown.set(rows); rows = grown; }
+    rows[3 * k] = a; rows[3 * k + 1] = b; rows[3 * k + 2] = c;
   };
   return {
     /** Signed distance (positive inside) at the cell's centre, an upper bound over the cell, and
@@ -636,8 +660,9 @@ export function createOutlineDistance(outline: SearchOutline) {
       const side = parentSide !== null && parentSide >= 0 ? parentSide : inside(x, y) ? 1 : 0;
       const f = side === 1 ? d : -d;
       let upper = f + h * Math.SQRT2;
-      const gs = nearBounds(x, y, h);
-      if (gs.length > 0) upper = Math.min(upper, maxOfMinLinear(gs, x, y, h) + slack);
+      const count = nearBounds(x, y, h);
+      for (let k = 0; k < count; k++) setRow(k, gs[k]![0], gs[k]![1], gs[k]![2]);
+      if (count > 0) upper = Math.min(upper, maxOfMinLinear(rows, count, x, y, h) + slack);
       return { f, upper, next: d > h * Math.SQRT2 + slack ? side : -1 };
     },
     /**
@@ -649,10 +674,11 @@ export function createOutlineDistance(outline: SearchOutline) {
     negWidthWithBound: (x: number, y: number, h: number) => {
       const f = nearest(x, y, BOUND_NEAR) - farthest(x, y);
       let upper = f + 2 * h * Math.SQRT2;
-      const gs = nearBounds(x, y, h);
-      const pairs: [number, number, number][] = [];
-      for (let k = 0; k < far.length; k++) {
-        let [D, qx, qy] = far[k]!;
+      const count = nearBounds(x, y, h);
+      let pairs = 0;
+      for (let k = 0; k < farCount; k++) {
+        const farthestPoint = far[k]!;
+        let D = farthestPoint[0], qx = farthestPoint[1], qy = farthestPoint[2];
         if (D === 0) continue;
         // farthest(p) ≥ |p − Q| + r for Q = C of a circle piece whose farthest direction from every
         // point of the cell lies in its span, else ≥ |p − Q| (r = 0) for the farthest point Q found.
@@ -665,15 +691,19 @@ export function createOutlineDistance(outline: SearchOutline) {
         }
         // −farthest ≤ −|p − Q| − r ≤ −u·(p − Q) − r − β(e·u⊥)².
         const ux = (x - qx) / D, uy = (y - qy) / D, beta = concavity(D, ux, uy, h), k0 = -(ux * qx + uy * qy) + r;
-        for (const [a, b, c, gb, px, py] of gs) {
-          pairs.push([a - ux, b - uy, c - k0]);
+        for (let j = 0; j < count; j++) {
+          const g = gs[j]!, a = g[0], b = g[1], c = g[2], gb = g[3], px = g[4], py = g[5];
+          setRow(pairs++, a - ux, b - uy, c - k0);
           const qp = maxConcaveQuadratic((a - ux) * x + (b - uy) * y + c - k0, a - ux, b - uy,
             gb * px * px + beta * uy * uy, gb * px * py - beta * ux * uy, gb * py * py + beta * ux * ux, h);
           upper = Math.min(upper, qp + slack);
         }
-        for (const i of near) { const g = circleGapUpperBound(pieces[i]!, outer, x, y, h); if (g) pairs.push(g); }
+        for (let j = 0; j < nearCount; j++) {
+          const g = circleGapUpperBound(pieces[near[j]!]!, outer, x, y, h);
+          if (g) setRow(pairs++, g[0], g[1], g[2]);
+        }
       }
-      if (pairs.length > 0) upper = Math.min(upper, maxOfMinLinear(pairs, x, y, h) + slack);
+      if (pairs > 0) upper = Math.min(upper, maxOfMinLinear(rows, pairs, x, y, h) + slack);
       return { f, upper, next: null };
     },
     /** Zone width and outer radius about a point. */

@@ -16,9 +16,9 @@
  * LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
  */
 import paper from 'paper';
-import { SaxesParser } from 'saxes';
 import { bench, describe } from 'vitest';
 import { analyze } from '../../server/src/engine/index';
+import { svgFloor } from './svgFloor';
 import { fmt, time } from './timing';
 
 type Kind = 'line' | 'cubic' | 'arc';
@@ -51,19 +51,7 @@ function makePathData(n: number, kind: Kind): string {
 
 const wrap = (d: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="3000mm" height="3000mm" viewBox="-1500 -1500 3000 3000"><path d="${d}"/></svg>`;
 
-function floor(text: string): number {
-  let sum = 0;
-  const parser = new SaxesParser();
-  parser.on('opentag', (tag) => {
-    const d = tag.attributes['d'];
-    if (typeof d !== 'string') return;
-    const re = /-?\d*\.?\d+(?:e-?\d+)?/g;
-    let m: RegExpExecArray | null;
-    while ((m = re.exec(d))) sum += Number(m[0]);
-  });
-  parser.write(text).close();
-  return sum;
-}
+const floor = (text: string) => svgFloor(text, ['d']);
 
 function ours(text: string): number {
   const r = analyze(text, 'svg', { assumedUnit: 'mm' });

@@ -551,14 +551,19 @@ export function buildChordTree(pieces: readonly SearchPiece[]) {
  */
 export function createOutlineDistance(outline: SearchOutline) {
   const pieces = outline.pieces, n = pieces.length;
-  const index = new Flatbush(Math.max(1, n));
-  for (const p of pieces) index.add(...pieceBox(p));
-  if (n === 0) index.add(0, 0, 0, 0);
-  index.finish();
+  // The pieces' boxes: their extent, and for the inside test an index of them when scanning them all would cost more.
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const index = n > SCAN_PIECES ? new Flatbush(n) : null;
+  for (const p of pieces) {
+    const box = pieceBox(p);
+    index?.add(...box);
+    minX = Math.min(minX, box[0]); minY = Math.min(minY, box[1]); maxX = Math.max(maxX, box[2]); maxY = Math.max(maxY, box[3]);
+  }
+  index?.finish();
   const all = pieces.map((_, i) => i);
   const tree = buildChordTree(pieces);
   const { lo, hi, ax, ay, bx, by, eps } = tree;
-  const slack = 1e-12 * (Math.abs(index.minX) + Math.abs(index.minY) + Math.abs(index.maxX) + Math.abs(index.maxY));
+  const slack = n === 0 ? 0 : 1e-12 * (Math.abs(minX) + Math.abs(minY) + Math.abs(maxX) + Math.abs(maxY));
   // The descent's stack of nodes and their bounds: a pending sibling a level at most, so ~log₂ n entries.
   const stack = new Int32Array(128), stackBound = new Float64Array(128);
   /** The nearest pieces (nearCount of them, nearest first) and their distances. */
@@ -596,7 +601,7 @@ export function createOutlineDistance(outline: SearchOutline) {
   };
   const inside = (x: number, y: number) => {
     let odd = false;
-    for (const i of n > SCAN_PIECES ? index.search(x, y, index.maxX, y) : all) {
+    for (const i of index ? index.search(x, y, maxX, y) : all) {
       const cx = crossingX(pieces[i]!, y);
       if (cx !== null && x < cx) odd = !odd;
     }
@@ -652,6 +657,8 @@ export function createOutlineDistance(outline: SearchOutline) {
     rows[3 * k] = a; rows[3 * k + 1] = b; rows[3 * k + 2] = c;
   };
   return {
+    /** The pieces' bounding box [minX, minY, maxX, maxY] (infinite when there are none). */
+    box: [minX, minY, maxX, maxY] as const,
     /** Signed distance (positive inside) at the cell's centre, an upper bound over the cell, and
      *  the cell's side of the outline for its children (1 inside, 0 outside, −1 when it may meet
      *  the outline). */
@@ -801,9 +808,9 @@ function maximise<S>(evaluate: (x: number, y: number, h: number, parent: S | nul
  * points. F(c) = farthest − nearest is 2-Lipschitz, so the branch and bound is exact up to
  * `errorBound` (its gap); the outline's own deviation δ is the caller's to add.
  */
-function minimumZoneOf(outline: SearchOutline, mec: Circle, tolerance?: number) {
+function minimumZoneOf(outline: SearchOutline, mec: Circle, tolerance?: number, distance = createOutlineDistance(outline)) {
   const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * 2 * mec.r;
-  const { negWidthWithBound, width } = createOutlineDistance(outline);
+  const { negWidthWithBound, width } = distance;
   const r = maximise(
     negWidthWithBound,
     [mec.x - mec.r, mec.y - mec.r, mec.x + mec.r, mec.y + mec.r], tol,
@@ -835,15 +842,10 @@ export function getMinimumZone(points: readonly Pt[], options: { asPoints?: bool
  * signed distance with the linear-programme cell bound, which is exact on plateaus (a rectangle's
  * inradius is reached along a segment) where the Lipschitz bound alone never closes the gap.
  */
-function inscribedCircleOf(outline: SearchOutline, tolerance?: number) {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of outline.pieces) {
-    const [x0, y0, x1, y1] = pieceBox(p);
-    minX = Math.min(minX, x0); minY = Math.min(minY, y0); maxX = Math.max(maxX, x1); maxY = Math.max(maxY, y1);
-  }
-  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * len(maxX - minX, maxY - minY);
-  const { signedWithBound } = createOutlineDistance(outline);
-  const r = maximise(signedWithBound, [minX, minY, maxX, maxY], tol, () => true);
+function inscribedCircleOf(outline: SearchOutline, tolerance?: number, distance = createOutlineDistance(outline)) {
+  const { signedWithBound, box } = distance;
+  const tol = tolerance ?? ROUNDNESS_RELATIVE_TOLERANCE * len(box[2] - box[0], box[3] - box[1]);
+  const r = maximise(signedWithBound, box, tol, () => true);
   return { radiusMm: r.f, centreX: r.x, centreY: r.y, errorBoundMm: Math.max(0, r.upper - r.f), capped: r.capped };
 }
 
@@ -987,11 +989,12 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
   const searchDelta = outline.deviationMm;
   // A reduced outline is known to ±δ only: searching to a finer gap than δ would not tighten the bound.
   const tolerance = reduced ? Math.max(ROUNDNESS_RELATIVE_TOLERANCE * size, searchDelta) : undefined;
-  const lic = inscribedCircleOf(outline, tolerance);
+  const distance = createOutlineDistance(outline);
+  const lic = inscribedCircleOf(outline, tolerance, distance);
   const inradius = toCircle(lic.radiusMm, lic.centreX, lic.centreY, lic.errorBoundMm + searchDelta);
   let minZone: MeasuredCircle = undef('the contour crosses itself, so it has no inside to zone');
   if (!selfCrossing) {
-    const mz = minimumZoneOf(outline, mec, tolerance);
+    const mz = minimumZoneOf(outline, mec, tolerance, distance);
     minZone = mz.onSearchRim
       ? undef('not round: the shape is elongated, so the best centre lies on the rim of its enclosing circle and no finite minimum zone exists')
       : toCircle(mz.widthMm, mz.centreX, mz.centreY, mz.errorBoundMm + 2 * searchDelta);

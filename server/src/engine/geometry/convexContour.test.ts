@@ -91,6 +91,13 @@ describe('getConvexContourHull: contours that turn one way are their own hull', 
     expect(Math.abs(hull.perimeterMm - (simpson * step) / 3)).toBeLessThan(1e-9 * hull.perimeterMm);
   });
 
+  it('gives a regular 100 000-gon the handbook area (n/2)R² sin(2π/n) and perimeter 2nR sin(π/n), its turns all tiny', () => {
+    const n = 100000, R = 500;
+    const hull = hullOf(contourFromSegments(polygonSegments(regularPolygonPoints(n, R), true), true))!;
+    expect(hull.areaMm2).toBeCloseTo((n / 2) * R * R * Math.sin((2 * Math.PI) / n), 6);
+    expect(hull.perimeterMm).toBeCloseTo(2 * n * R * Math.sin(Math.PI / n), 8);
+  });
+
   it('gives an open outline the hull of the curve its chord closes: a 15 mm square with a gap in its bottom edge and a rounded corner (composite areas)', () => {
     // The outline of the DXF benchmark: corner arc, right, top and left edges; the chord (0,0)–(10,0) closes it.
     const corner: Arc = arc(10, 5, 5, 0, 0, 5, -Math.PI / 2, Math.PI / 2);

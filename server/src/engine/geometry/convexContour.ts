@@ -40,6 +40,19 @@ export const JOINT_GAP_RELATIVE = 1e-7;
 const EPS = 2 ** -52;
 const TWO_PI = 2 * Math.PI;
 
+/**
+ * atan2(cross, dot): the angle turned from one direction to another. A finely divided curve turns by
+ * tiny angles at nearly every joint, where atan t = t − t³/3 + t⁵/5 − … is exact to rounding for
+ * |t| < 1e-4 (the next term is below 2e-21 of it) at a fraction of atan2's cost.
+ */
+function turnAngle(cross: number, dot: number): number {
+  if (dot > 0 && Math.abs(cross) < 1e-4 * dot) {
+    const t = cross / dot;
+    return t - (t * t * t) / 3;
+  }
+  return Math.atan2(cross, dot);
+}
+
 /** Walks a contour's tangents, joint by joint, for one orientation and the other at once. */
 class TurnWalk {
   /** Sum of every turn (joints and arcs), signed: ±2π for a convex contour. */
@@ -75,7 +88,7 @@ class TurnWalk {
   }
 
   private joint(ax: number, ay: number, an: number, bx: number, by: number, bn: number): void {
-    const turn = Math.atan2(ax * by - ay * bx, ax * bx + ay * by);
+    const turn = turnAngle(ax * by - ay * bx, ax * bx + ay * by);
     if (Math.abs(turn) > Math.PI - 1e-6) this.cusp = true;
     this.total += turn;
     const allowance = an + bn + 4 * EPS;

@@ -71,6 +71,14 @@ describe('getContourCard', () => {
     expect(row(c, 'Nesting')).toBe('inside contour #0');
   });
 
+  it('says how much a hull taken from the flattened curve may fall short, and nothing when it cannot', () => {
+    // A hull known to [area, area + 0.0472] and [perimeter, perimeter + 6.28e-4] (δ·P + πδ² and 2πδ for δ = 1e-4 mm, P = 471.2 mm).
+    const flattened = { ...open, geometry: { ...open.geometry, hull: { ...open.geometry.hull, areaErrorMm2: 0.0472, perimeterErrorMm: 6.28e-4 } } };
+    expect(row(getContourCard(flattened, result), 'Convex hull')).toBe('area 6 mm² (up to 0.047 mm² more), perimeter 12 mm (up to 0.000628 mm more)');
+    const exact = { ...open, geometry: { ...open.geometry, hull: { ...open.geometry.hull, areaErrorMm2: 1e-12, perimeterErrorMm: 0 } } };
+    expect(row(getContourCard(exact, result), 'Convex hull')).toBe('area 6 mm², perimeter 12 mm');
+  });
+
   it('calls a bow-tie\'s Q meaningless and gives its Banchoff–Pohl area ∬w² dA = 2 (REFERENCES.md §1.4)', () => {
     const bowTie = {
       ...rect,

@@ -6,7 +6,7 @@ import { MarkupKind } from 'vscode-languageserver';
 import type { Hover } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { formatNumber, getContourAt } from '../engine/index';
-import type { AnalysisFigures, ContourGeometry, ContourMetrics, ContourOutline, Measured, MeasuredCircle, UnitsInfo } from '../engine/index';
+import type { AnalysisFigures, ContourGeometry, ContourHull, ContourMetrics, ContourOutline, Measured, MeasuredCircle, UnitsInfo } from '../engine/index';
 import { toRange } from './diagnostics';
 
 /** What a card is made from: a contour's figures (with or without its segments). */
@@ -89,6 +89,15 @@ function describeNesting(entry: CardSource, result: AnalysisFigures): string {
   return `hole in contour #${g.parent}${turn}`;
 }
 
+/**
+ * The hull's area and perimeter. A hull taken from the flattened curve may fall short of the true one
+ * (never above it): the most it may is shown when it is more than residue.
+ */
+function hull(h: ContourHull): string {
+  const more = (bound: number, unit: string) => (bound < RESIDUE_MM ? '' : ` (up to ${formatNumber(bound)} ${unit} more)`);
+  return `area ${formatNumber(h.areaMm2)} mm²${more(h.areaErrorMm2, 'mm²')}, perimeter ${formatNumber(h.perimeterMm)} mm${more(h.perimeterErrorMm, 'mm')}`;
+}
+
 /** Rows for the file-wide geometry: roundness (REFERENCES.md §1.2–1.4, §3), hull, nesting, self-crossing. */
 function geometryRows(entry: CardSource, result: AnalysisFigures): CardRow[] {
   const { geometry: g } = entry;
@@ -105,7 +114,7 @@ function geometryRows(entry: CardSource, result: AnalysisFigures): CardRow[] {
     { label: 'Circumradius R', value: circle(r.circumradius) },
     { label: 'Minimum zone (ISO 12181)', value: circle(r.minZone) },
     { label: 'R − ρ', value: gap },
-    { label: 'Convex hull', value: `area ${f(g.hull.areaMm2)} mm², perimeter ${f(g.hull.perimeterMm)} mm` },
+    { label: 'Convex hull', value: hull(g.hull) },
     { label: 'Convexity A/A_hull', value: measured(g.hull.convexity, '') },
     { label: 'Nesting', value: describeNesting(entry, result) },
   ];

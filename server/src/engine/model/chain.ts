@@ -271,6 +271,7 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
   // The cursor: the first cell not below the last key sought. Keys sought mostly grow, so it moves
   // forward; it gallops, so a key far away (or behind, with huge coordinates) costs a logarithm.
   let cursor = 0;
+  /** Moves the cursor to the first cell not below (g, c, r) and returns it (cellCount when none is). */
   const seekCell = (g: number, c: number, r: number): number => {
     let lo: number, hi: number;
     if (cursor < cellCount && compareCell(cursor, g, c, r) < 0) {
@@ -300,16 +301,16 @@ export function chainPieces(input: ChainInput, tolerance: number): ChainResult {
       else hi = mid;
     }
     cursor = lo;
-    return cursor < cellCount && compareCell(cursor, g, c, r) === 0 ? cursor : -1;
+    return cursor;
   };
   // Each cell with the cell above it (the next one in the order, when it is adjacent) and the three
-  // cells of the next column, whose keys grow with the cell's, so the cursor only moves forward.
+  // cells of the next column, whose keys grow with the cell's, so the cursor only moves forward: one
+  // seek finds the first of them, and those that exist follow it in the order.
   for (let cell = 0; cell < cellCount; cell++) {
     const g = cellGroup[cell], c = cellCol[cell], r = cellRow[cell];
     if (cell + 1 < cellCount && compareCell(cell + 1, g, c, r + 1) === 0) joinCells(cell, cell + 1);
-    for (let dr = -1; dr <= 1; dr++) {
-      const b = seekCell(g, c + 1, r + dr);
-      if (b >= 0 && b !== cell) joinCells(cell, b);
+    for (let b = seekCell(g, c + 1, r - 1); b < cellCount && compareCell(b, g, c + 1, r + 1) <= 0; b++) {
+      if (b !== cell) joinCells(cell, b);
     }
   }
 

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Arc, Segment } from '../../types';
 import { toPlainSegment } from '../../../../../test/support/shapes';
-import { PackedSegmentWriter } from '../../model/packedSegment';
 import { PieceStore, type PieceFacts } from './pieceStore';
 
 const span = { start: 0, end: 10 };
@@ -17,9 +16,8 @@ function roundTrip(segments: Segment[]): { forward: Segment[]; backward: Segment
   const store = new PieceStore();
   for (const s of segments) store.addSegment(null, s, s.span.start, s.span.end);
   store.addPiece(facts);
-  const forward: Segment[] = [], backward: Segment[] = [];
-  store.appendSegments(0, false, forward, new PackedSegmentWriter(16));
-  store.appendSegments(0, true, backward, new PackedSegmentWriter(16));
+  const forward = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments;
+  const backward = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(1), 1).segments;
   return { forward: forward.map(toPlainSegment), backward: backward.map(toPlainSegment) };
 }
 
@@ -62,9 +60,29 @@ describe('PieceStore', () => {
     const m = { a: 0, b: 2, c: -2, d: 0, e: 5, f: -1 }; // rotate 90°, scale 2, move by (5, −1)
     store.addSegment(m, a, 2, 4);
     store.addPiece(facts);
-    const out: Segment[] = [];
-    store.appendSegments(0, false, out, new PackedSegmentWriter(16));
+    const out = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments;
     expect(toPlainSegment(out[0])).toEqual({ ...a, x0: 5, y0: 1, x1: 3, y1: -1, cx: 5, cy: -1, ux: 0, uy: 2, vx: -2, vy: 0, span: { start: 2, end: 4 } });
+  });
+
+  it('puts pieces in the order asked for, each forwards or backwards, and leaves out the pieces not asked for', () => {
+    // Five pieces of 1 to 3 segments (of every kind), asked for in the order 3, 0, 4, 1 (2 left out), 0 and 4 backwards.
+    const store = new PieceStore();
+    const pieces = [segments.slice(0, 2), segments.slice(2, 3), segments.slice(1, 4), segments.slice(3, 4), segments.slice(0, 3)];
+    for (const piece of pieces) {
+      for (const s of piece) store.addSegment(null, s, s.span.start, s.span.end);
+      store.addPiece(facts);
+    }
+    const order = [3, 0, 4, 1], back = [0, 1, 1, 0];
+    const { segments: out, starts } = store.getSegmentsInOrder(Int32Array.from(order), Uint8Array.from(back), order.length);
+    // Reference: each piece read alone, in the same direction, one after another.
+    const alone = order.map((i, k) => {
+      const one = new PieceStore();
+      for (const s of pieces[i]!) one.addSegment(null, s, s.span.start, s.span.end);
+      one.addPiece(facts);
+      return one.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(back[k]!), 1).segments.map(toPlainSegment);
+    });
+    expect(out.map(toPlainSegment)).toEqual(alone.flat());
+    expect([...starts]).toEqual([0, 1, 3, 6, 7]); // pieces of 1, 2, 3 and 1 segments
   });
 
   it('gives each segment the span it was stored with (piece span or its own)', () => {

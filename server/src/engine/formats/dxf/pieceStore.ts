@@ -2,9 +2,9 @@
  * The pieces of a DXF drawing as flat records: segment coordinates in one growing Float64Array, spans,
  * kinds and piece facts in Int32Arrays, names (entity types, layers) once each. A million-entity file
  * then holds no object per piece or per segment while it is read and chained; the result's segments
- * are written once, packed, in contour order and drawing direction (`appendSegments`).
+ * are written once, packed, in contour order and drawing direction (`getSegmentsInOrder`).
  */
-import { makePackedSegment, type PackedSegmentWriter } from '../../model/packedSegment';
+import { makePackedSegment } from '../../model/packedSegment';
 import type { Segment, SourceSpan } from '../../types';
 import type { PointGroups } from './entities';
 import type { Affine } from './transform';
@@ -281,35 +281,72 @@ export class PieceStore {
     out[k + 1] = this.coordinates[at + 1];
   }
 
-  /** Number of coordinates of all segments stored (the size of their packed copy). */
-  getCoordinateCount(): number {
-    return this.coordinateCount;
-  }
-
   /**
-   * Appends the piece's segments to `out`, walked backwards when `reversed` (each segment reversed, an
-   * arc by θ0' = θ0 + sweep, sweep' = −sweep), written in drawing order to `writer`, which they then
-   * read (packedSegment.ts).
+   * The segments of the pieces seq[0..count) (each piece at most once) in that order, a piece walked
+   * backwards where reversed[k] is 1 (its segments in reverse order, each reversed: ends and control
+   * points swapped, an arc by θ0' = θ0 + sweep, sweep' = −sweep), packed on one array of coordinates
+   * (packedSegment.ts); starts[k] is the first segment of seq[k], starts[count] their number. The
+   * pieces are read in stored order and each is written where `seq` puts it: walking `seq` instead
+   * would cost a chain of dependent cache misses a piece (its record, its segments, its coordinates)
+   * on a shuffled file, where these stores do not wait on one another.
    */
-  appendSegments(i: number, reversed: boolean, out: Segment[], writer: PackedSegmentWriter): void {
-    const first = this.getFirstSegment(i), end = this.getSegmentEnd(i);
-    const c = this.coordinates, sg = this.segments;
-    for (let k = 0; k < end - first; k++) {
-      const r = SEGMENT_WIDTH * (reversed ? end - 1 - k : first + k);
-      const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], n = COORDINATES[kind];
-      const o = writer.reserve(n), d = writer.chunk;
-      if (!reversed) {
-        for (let j = 0; j < n; j++) d[o + j] = c[a + j];
-      } else if (kind === ARC) {
-        // Ends swapped, centre and semi-diameters kept, θ0' = θ0 + sweep, sweep' = −sweep.
-        d[o] = c[a + 2]; d[o + 1] = c[a + 3]; d[o + 2] = c[a]; d[o + 3] = c[a + 1];
-        for (let j = 4; j < 10; j++) d[o + j] = c[a + j];
-        d[o + 10] = c[a + 10] + c[a + 11]; d[o + 11] = -c[a + 11];
-      } else {
-        // Control points in reverse order.
-        for (let j = 0; j < n; j += 2) { d[o + j] = c[a + n - 2 - j]; d[o + j + 1] = c[a + n - 1 - j]; }
-      }
-      out.push(makePackedSegment(KIND_NAMES[kind], d, o, sg[r + SPAN_START], sg[r + SPAN_END]));
+  getSegmentsInOrder(seq: Int32Array, reversed: Uint8Array, count: number): { segments: Segment[]; starts: Int32Array } {
+    const n = this.pieceCount, sg = this.segments, c = this.coordinates;
+    /** The first coordinate of segment j (the end of them all for j = segmentCount). */
+    const coordinateOf = (j: number) => (j < this.segmentCount ? sg[SEGMENT_WIDTH * j + COORDINATE_AT] : this.coordinateCount);
+    // Each piece's numbers of segments and coordinates, in stored order (a piece's are consecutive).
+    const segmentsOf = new Int32Array(n), coordinatesOf = new Int32Array(n);
+    for (let i = 0, first = 0; i < n; i++) {
+      const end = this.getSegmentEnd(i);
+      segmentsOf[i] = end - first;
+      coordinatesOf[i] = coordinateOf(end) - coordinateOf(first);
+      first = end;
     }
+    // Where each piece asked for goes (−1: not asked for).
+    const segmentAt = new Int32Array(n).fill(-1), coordinateAt = new Int32Array(n), back = new Uint8Array(n);
+    const starts = new Int32Array(count + 1);
+    let segmentTotal = 0, coordinateTotal = 0;
+    for (let k = 0; k < count; k++) {
+      const i = seq[k];
+      starts[k] = segmentTotal;
+      segmentAt[i] = segmentTotal; coordinateAt[i] = coordinateTotal; back[i] = reversed[k];
+      segmentTotal += segmentsOf[i];
+      coordinateTotal += coordinatesOf[i];
+    }
+    starts[count] = segmentTotal;
+    // The copy, in stored order.
+    const d = new Float64Array(coordinateTotal);
+    const kinds = new Uint8Array(segmentTotal), offsets = new Int32Array(segmentTotal);
+    const spanStarts = new Int32Array(segmentTotal), spanEnds = new Int32Array(segmentTotal);
+    for (let i = 0, first = 0; i < n; first += segmentsOf[i], i++) {
+      if (segmentAt[i] < 0) continue;
+      const pieceSegments = segmentsOf[i], from = coordinateOf(first), to = from + coordinatesOf[i];
+      for (let k = 0; k < pieceSegments; k++) {
+        const r = SEGMENT_WIDTH * (first + k);
+        const a = sg[r + COORDINATE_AT], kind = sg[r + KIND], m = COORDINATES[kind];
+        let t: number, o: number;
+        if (!back[i]) {
+          t = segmentAt[i] + k;
+          o = coordinateAt[i] + (a - from);
+          for (let j = 0; j < m; j++) d[o + j] = c[a + j];
+        } else {
+          t = segmentAt[i] + pieceSegments - 1 - k;
+          o = coordinateAt[i] + (to - a - m);
+          if (kind === ARC) {
+            // Ends swapped, centre and semi-diameters kept, θ0' = θ0 + sweep, sweep' = −sweep.
+            d[o] = c[a + 2]; d[o + 1] = c[a + 3]; d[o + 2] = c[a]; d[o + 3] = c[a + 1];
+            for (let j = 4; j < 10; j++) d[o + j] = c[a + j];
+            d[o + 10] = c[a + 10] + c[a + 11]; d[o + 11] = -c[a + 11];
+          } else {
+            // Control points in reverse order.
+            for (let j = 0; j < m; j += 2) { d[o + j] = c[a + m - 2 - j]; d[o + j + 1] = c[a + m - 1 - j]; }
+          }
+        }
+        kinds[t] = kind; offsets[t] = o; spanStarts[t] = sg[r + SPAN_START]; spanEnds[t] = sg[r + SPAN_END];
+      }
+    }
+    const segments: Segment[] = new Array<Segment>(segmentTotal);
+    for (let t = 0; t < segmentTotal; t++) segments[t] = makePackedSegment(KIND_NAMES[kinds[t]], d, offsets[t], spanStarts[t], spanEnds[t]);
+    return { segments, starts };
   }
 }

@@ -12,7 +12,6 @@
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
-import { PackedSegmentWriter } from '../../model/packedSegment';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -344,42 +343,45 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     if (closeFix) fixes.set(k, closeFix);
   }
 
-  // Closed pieces and chains merged by order, a closed piece first on a tie.
-  const contours: Contour[] = new Array<Contour>(closedCount + chainCount);
-  /** The contour's segments as they are made; each contour gets a copy of exactly its length. */
-  const segments: Segment[] = [];
-  const writer = new PackedSegmentWriter(store.getCoordinateCount());
-  let nextClosed = 0, nextChain = 0;
-  for (let index = 0; index < contours.length; index++) {
-    segments.length = 0;
-    let p: number, closed: boolean, startSpan: SourceSpan, endSpan: SourceSpan, closeFix: Fix | undefined;
-    let span: SourceSpan;
+  // Closed pieces and chains merged by order, a closed piece first on a tie: each contour's pieces
+  // (walked backwards where reversed) in `seq`, contour `index` at seq[seqStart[index]…].
+  const contourCount = closedCount + chainCount;
+  const seq = new Int32Array(closedCount + links.length), reversed = new Uint8Array(seq.length);
+  const seqStart = new Int32Array(contourCount + 1);
+  /** The chain of each contour, or −1 for a closed piece. */
+  const chainOf = new Int32Array(contourCount);
+  let used = 0, nextClosed = 0, nextChain = 0;
+  for (let index = 0; index < contourCount; index++) {
+    seqStart[index] = used;
     if (nextClosed < closedCount && (nextChain === chainCount || store.getOrder(closedPieces[nextClosed]) <= chainOrder[nextChain])) {
-      p = closedPieces[nextClosed++];
-      span = store.getSpan(p, 0);
-      store.appendSegments(p, false, segments, writer);
-      closed = true;
-      startSpan = store.getSpanLike(p, 1, span);
-      endSpan = store.getSpanLike(p, 2, span);
+      chainOf[index] = -1;
+      seq[used++] = closedPieces[nextClosed++];
     } else {
       const k = nextChain++;
-      const from = chained.starts[k], to = chained.starts[k + 1];
-      p = open[links[from] >> 1];
-      span = store.getSpan(p, 0);
-      for (let l = from; l < to; l++) store.appendSegments(open[links[l] >> 1], (links[l] & 1) === 1, segments, writer);
-      const last = open[links[to - 1] >> 1];
-      startSpan = store.getSpanLike(p, (links[from] & 1) === 1 ? 2 : 1, span);
-      endSpan = store.getSpanLike(last, (links[to - 1] & 1) === 1 ? 1 : 2, span);
-      closed = chainClosed[k] === 1;
-      closeFix = fixes.get(k);
+      chainOf[index] = k;
+      for (let l = chained.starts[k]; l < chained.starts[k + 1]; l++) {
+        seq[used] = open[links[l] >> 1];
+        reversed[used++] = links[l] & 1;
+      }
     }
-    const own = segments.slice();
+  }
+  seqStart[contourCount] = used;
+  const { segments, starts } = store.getSegmentsInOrder(seq, reversed, used);
+  const contours: Contour[] = new Array<Contour>(contourCount);
+  for (let index = 0; index < contourCount; index++) {
+    const from = seqStart[index], to = seqStart[index + 1];
+    const p = seq[from], last = seq[to - 1], k = chainOf[index];
+    const span = store.getSpan(p, 0);
+    // A contour starts at its first piece's start (its end when walked backwards) and ends at its last piece's end.
+    const startSpan = store.getSpanLike(p, reversed[from] ? 2 : 1, span);
+    const endSpan = store.getSpanLike(last, reversed[to - 1] ? 1 : 2, span);
+    const own = segments.slice(starts[from], starts[to]);
     contours[index] = {
-      index, segments: own, closed,
+      index, segments: own, closed: k < 0 || chainClosed[k] === 1,
       startX: own[0].x0, startY: own[0].y0,
       span, startSpan, endSpan, elementSpan: span,
       element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
-      closeFix,
+      closeFix: k < 0 ? undefined : fixes.get(k),
     };
   }
   return contours;

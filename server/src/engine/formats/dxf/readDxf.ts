@@ -12,7 +12,7 @@
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
-import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, TextEdit, UnitsInfo } from '../../types';
+import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
 import { PieceBuilder } from './pieces';

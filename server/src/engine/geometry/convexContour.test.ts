@@ -11,7 +11,7 @@ const size = (c: Contour) => {
   const [a, b, cc, d] = measureContour(c, 'up').bboxMm;
   return Math.hypot(cc - a, d - b);
 };
-const hullOf = (c: Contour) => getConvexContourHull(c, size(c));
+const hullOf = (c: Contour) => getConvexContourHull(c, measureContour(c, 'up'));
 
 /**
  * A w × h rectangle with corners rounded to radius r, counter-clockwise from the bottom edge, each

@@ -5,9 +5,9 @@
  * bounds a convex region [src: do Carmo, *Differential Geometry of Curves and Surfaces*, 1976, §1-7
  * (a closed plane curve with rotation index 1 and curvature of one sign is convex; corners count as
  * turns) — from memory]. Such a contour is its own hull: the hull's area is the contour's area and
- * its perimeter the contour's length, in closed form (Green's theorem, area.ts; exact lengths of lines
- * and arcs, Béziers' within BEZIER_LENGTH_REL_TOL, length.ts) where flattening (hull.ts) leaves an
- * error of δ·P. An open contour's hull is that of the
+ * its perimeter the contour's length, in closed form (Green's theorem, area.ts; the measures' lengths,
+ * exact for lines and arcs, Béziers' within BEZIER_LENGTH_REL_TOL) where flattening (hull.ts) leaves
+ * an error of δ·P. An open contour's hull is that of the
  * closed curve its chord from end to start completes, since the chord lies in the hull.
  *
  * An arc of an ellipse turns one way (the sign of sweep·(U × V)); a Bézier is taken when its control
@@ -24,10 +24,10 @@
  * perimeter in [P − P·E²/2 − 2G, P], widened by the Béziers' length tolerance; both are the stated
  * bounds (0 for lines and arcs when no joint needed either).
  */
-import type { Contour, Cubic, Quad } from '../types';
+import type { Contour, ContourMetrics, Cubic, Quad } from '../types';
 import { CompensatedSum, getSegmentArea } from './area';
 import type { HullMeasures } from './hull';
-import { getSegmentLength, getSegmentLengthEstimate, getVectorLength } from './length';
+import { getVectorLength } from './length';
 import { BEZIER_LENGTH_REL_TOL } from './tolerances';
 
 /** Largest concave turn (rad) at a joint still taken as rounding of a tangential joint; a larger one
@@ -144,22 +144,26 @@ function addBezier(s: Quad | Cubic, walk: TurnWalk): boolean {
 /**
  * The hull measures of a contour that turns one way (see the module comment), or null when it does
  * not (or its turns cannot be told: a Bézier whose control polygon does not turn one way) or has no
- * extent. `sizeMm` is its size (bbox
- * diagonal); a self-crossing contour is never convex, and the caller need not ask.
+ * extent. The length is the measures' own (`metrics`, whose lengths are exact for lines and arcs and
+ * within BEZIER_LENGTH_REL_TOL for Béziers) plus the gaps bridged between pieces, so no segment is
+ * measured twice; a self-crossing contour is never convex, and the caller need not ask.
  */
-export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeasures | null {
+export function getConvexContourHull(contour: Contour, metrics: ContourMetrics): HullMeasures | null {
+  const [minX, minY, maxX, maxY] = metrics.bboxMm;
+  const sizeMm = getVectorLength(maxX - minX, maxY - minY);
   if (!(sizeMm > 0) || !Number.isFinite(sizeMm)) return null;
   const { segments, startX: ox, startY: oy } = contour;
   const jointGap = JOINT_GAP_RELATIVE * sizeMm;
   const walk = new TurnWalk();
-  const length = new CompensatedSum(), area = new CompensatedSum();
-  let gaps = 0, bezierLength = 0;
+  const area = new CompensatedSum();
+  /** Lengths of the gaps bridged between pieces: all, and those taken as joints. */
+  let bridged = 0, gaps = 0, hasBezier = false;
   let endX = ox, endY = oy;
   /** The curve from the last end to (x, y): a joint when short, else a chord of the curve. */
   const bridge = (x: number, y: number) => {
     const dx = x - endX, dy = y - endY, g = getVectorLength(dx, dy);
     if (g === 0) return;
-    length.add(g);
+    bridged += g;
     area.add(((endX - ox) * (y - oy) - (endY - oy) * (x - ox)) / 2);
     if (g <= jointGap) gaps += g;
     else walk.piece(dx, dy, dx, dy, 4 * EPS);
@@ -169,10 +173,7 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
     if (s.kind === 'quad' || s.kind === 'cubic') {
       endX = s.kind === 'quad' ? s.x2 : s.x3; endY = s.kind === 'quad' ? s.y2 : s.y3;
       if (!addBezier(s, walk)) return null;
-      const estimate = getSegmentLengthEstimate(s);
-      if (estimate.depthCapped) return null;
-      length.add(estimate.value);
-      bezierLength += estimate.value;
+      hasBezier = true;
       area.add(getSegmentArea(s, ox, oy));
       if (walk.badPositive && walk.badNegative) return null;
       continue;
@@ -181,7 +182,6 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
     if (s.kind === 'line') {
       const dx = s.x1 - s.x0, dy = s.y1 - s.y0;
       if (dx === 0 && dy === 0) continue;
-      length.add(getVectorLength(dx, dy));
       area.add(getSegmentArea(s, ox, oy));
       walk.piece(dx, dy, dx, dy, 4 * EPS);
       if (walk.badPositive && walk.badNegative) return null;
@@ -204,13 +204,14 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
     // angle between the end tangents is the turn for |sweep| ≤ π and its complement beyond.
     const between = Math.abs(Math.atan2(sx * ey - sy * ex, sx * ex + sy * ey));
     const magnitude = Math.abs(sweep) <= Math.PI ? between : TWO_PI - between;
-    length.add(getSegmentLength(s));
     area.add(getSegmentArea(s, ox, oy));
     walk.piece(sx, sy, ex, ey, noise);
     walk.arcTurn(Math.sign(sweep) * Math.sign(cross) * magnitude);
     // Turns clearly both ways: no need to walk the rest (a wavy outline of a million pieces stops early).
     if (walk.badPositive && walk.badNegative) return null;
   }
+  // The measures' length holds the closing chord of a closed contour; an open one's is its gap.
+  const closing = getVectorLength(ox - endX, oy - endY);
   bridge(ox, oy);
   walk.close();
   if (walk.cusp || !(Math.abs(Math.abs(walk.total) - TWO_PI) < 1e-6)) return null;
@@ -219,10 +220,10 @@ export function getConvexContourHull(contour: Contour, sizeMm: number): HullMeas
   const against = positive ? walk.againstPositive : walk.againstNegative;
   // So many near-tangential joints that their allowances add up: the flattened hull bounds it better.
   if (!(against < MAX_KINK_RAD)) return null;
-  const p = length.value, a = Math.abs(area.value);
+  const p = metrics.lengthMm + bridged - (metrics.closed ? closing : 0), a = Math.abs(area.value);
   if (!Number.isFinite(p) || !Number.isFinite(a)) return null;
-  // Bézier lengths are known to BEZIER_LENGTH_REL_TOL either way.
-  const lengthError = BEZIER_LENGTH_REL_TOL * bezierLength;
+  // Bézier lengths are known to BEZIER_LENGTH_REL_TOL either way (taken of the whole length here).
+  const lengthError = hasBezier ? BEZIER_LENGTH_REL_TOL * p : 0;
   const perimeterErrorMm = (p * against * against) / 2 + 2 * gaps + 2 * lengthError;
   return {
     areaMm2: a,

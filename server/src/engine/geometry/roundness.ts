@@ -939,7 +939,7 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
     ? { value: null, reason: 'the contour crosses itself, so the deficit from its net area is meaningless' }
     : deficit.value === null ? deficit : { value: Math.sqrt(Math.max(0, deficit.value)) / Math.PI };
   // A contour that turns one way is its own hull, in closed form (convexContour.ts).
-  const convex = selfCrossing ? null : getConvexContourHull(contour, size);
+  const convex = selfCrossing ? null : getConvexContourHull(contour, metrics);
   if (!metrics.closed || size === 0) {
     // Only the hull's measures: no polyline or hull vertices are kept.
     const hull = toContourHull(convex ?? getContourHullMeasures(contour, flatteningMm), metrics, selfCrossing);

@@ -68,6 +68,12 @@ class TurnWalk {
   private firstX = 0; private firstY = 0; private firstNoise = 0;
   private lastX = 0; private lastY = 0; private lastNoise = 0;
 
+  /** Back to no pieces. */
+  reset(): void {
+    this.total = this.againstPositive = this.againstNegative = 0;
+    this.badPositive = this.badNegative = this.cusp = this.started = false;
+  }
+
   /** A piece with these start and end tangents (any length) and the rounding noise (rad) of their directions. */
   piece(sx: number, sy: number, ex: number, ey: number, noise: number): void {
     if (this.started) this.joint(this.lastX, this.lastY, this.lastNoise, sx, sy, noise);
@@ -102,6 +108,48 @@ class TurnWalk {
     }
   }
 }
+
+/**
+ * The walk along a contour from its start (ox, oy): its turns, its area from the start, and the gaps
+ * it bridges between one piece's end and the next one's start. One is reused for every contour
+ * (`start` resets it): its numbers change in place, where a closure's or a fresh object's would
+ * each be a new heap number (~700 B a small contour, a quarter of a million of them in a big drawing).
+ */
+class PathWalk {
+  readonly walk = new TurnWalk();
+  area = new CompensatedSum();
+  /** Lengths of the gaps bridged between pieces: all, and those taken as joints. */
+  bridged = 0;
+  gaps = 0;
+  /** The last piece's end. */
+  endX = 0;
+  endY = 0;
+  private ox = 0;
+  private oy = 0;
+  private jointGap = 0;
+
+  start(ox: number, oy: number, jointGap: number): this {
+    this.walk.reset();
+    this.area = new CompensatedSum();
+    this.bridged = this.gaps = 0;
+    this.endX = this.ox = ox; this.endY = this.oy = oy;
+    this.jointGap = jointGap;
+    return this;
+  }
+
+  /** The curve from the last end to (x, y): a joint when short, else a chord of the curve. */
+  bridge(x: number, y: number): void {
+    const { endX, endY, ox, oy } = this;
+    const dx = x - endX, dy = y - endY, g = getVectorLength(dx, dy);
+    if (g === 0) return;
+    this.bridged += g;
+    this.area.add(((endX - ox) * (y - oy) - (endY - oy) * (x - ox)) / 2);
+    if (g <= this.jointGap) this.gaps += g;
+    else this.walk.piece(dx, dy, dx, dy, 4 * EPS);
+  }
+}
+
+const pathWalk = new PathWalk();
 
 /** Bézier control turns up to this (rad) are taken as rounding of collinear control points. */
 const STRAIGHT_RAD = 1e-12;
@@ -153,32 +201,20 @@ export function getConvexContourHull(contour: Contour, metrics: ContourMetrics):
   const sizeMm = getVectorLength(maxX - minX, maxY - minY);
   if (!(sizeMm > 0) || !Number.isFinite(sizeMm)) return null;
   const { segments, startX: ox, startY: oy } = contour;
-  const jointGap = JOINT_GAP_RELATIVE * sizeMm;
-  const walk = new TurnWalk();
-  const area = new CompensatedSum();
-  /** Lengths of the gaps bridged between pieces: all, and those taken as joints. */
-  let bridged = 0, gaps = 0, hasBezier = false;
-  let endX = ox, endY = oy;
-  /** The curve from the last end to (x, y): a joint when short, else a chord of the curve. */
-  const bridge = (x: number, y: number) => {
-    const dx = x - endX, dy = y - endY, g = getVectorLength(dx, dy);
-    if (g === 0) return;
-    bridged += g;
-    area.add(((endX - ox) * (y - oy) - (endY - oy) * (x - ox)) / 2);
-    if (g <= jointGap) gaps += g;
-    else walk.piece(dx, dy, dx, dy, 4 * EPS);
-  };
+  const path = pathWalk.start(ox, oy, JOINT_GAP_RELATIVE * sizeMm);
+  const { walk, area } = path;
+  let hasBezier = false;
   for (const s of segments) {
-    bridge(s.x0, s.y0);
+    path.bridge(s.x0, s.y0);
     if (s.kind === 'quad' || s.kind === 'cubic') {
-      endX = s.kind === 'quad' ? s.x2 : s.x3; endY = s.kind === 'quad' ? s.y2 : s.y3;
+      path.endX = s.kind === 'quad' ? s.x2 : s.x3; path.endY = s.kind === 'quad' ? s.y2 : s.y3;
       if (!addBezier(s, walk)) return null;
       hasBezier = true;
       area.add(getSegmentArea(s, ox, oy));
       if (walk.badPositive && walk.badNegative) return null;
       continue;
     }
-    endX = s.x1; endY = s.y1;
+    path.endX = s.x1; path.endY = s.y1;
     if (s.kind === 'line') {
       const dx = s.x1 - s.x0, dy = s.y1 - s.y0;
       if (dx === 0 && dy === 0) continue;
@@ -211,8 +247,9 @@ export function getConvexContourHull(contour: Contour, metrics: ContourMetrics):
     if (walk.badPositive && walk.badNegative) return null;
   }
   // The measures' length holds the closing chord of a closed contour; an open one's is its gap.
-  const closing = getVectorLength(ox - endX, oy - endY);
-  bridge(ox, oy);
+  const closing = getVectorLength(ox - path.endX, oy - path.endY);
+  path.bridge(ox, oy);
+  const { bridged, gaps } = path;
   walk.close();
   if (walk.cusp || !(Math.abs(Math.abs(walk.total) - TWO_PI) < 1e-6)) return null;
   const positive = walk.total > 0;

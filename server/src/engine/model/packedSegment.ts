@@ -64,6 +64,17 @@ export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: num
   }
 }
 
+/**
+ * One packed segment of each kind, kept for the life of the process. V8 holds an object layout (a
+ * "map") only through the objects that have it, and throws away the optimised code compiled against a
+ * map once the map is collected. Without these, a full collection after an analysis's segments became
+ * garbage took the optimised code of every function that reads segments (measures, bounds, pieces,
+ * hull), and the next analysis ran unoptimised until the compiler caught up: on 1e5 loose DXF entities
+ * analysed 16 times in one process, the steady state was ~10 % slower (DEVELOPERS.md, "Sixth round").
+ */
+const keptShapes: Segment[] = [];
+for (const kind of ['line', 'quad', 'cubic', 'arc'] as const) keptShapes.push(makePackedSegment(kind, new Float64Array(12), 0, 0, 0));
+
 /** The same segment with another span (a packed one shares its coordinates). */
 export function withSpan(s: Segment, span: SourceSpan): Segment {
   return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span.start, span.end) : { ...s, span };

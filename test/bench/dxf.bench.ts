@@ -2,9 +2,9 @@
  * DXF reading and analysis speed side by side, and peak memory (run: `npx vitest bench --run test/bench/dxf.bench.ts`).
  *
  * Input: loose LINE/ARC entities (open outlines of 3 lines + 1 arc, shuffled; looseDxf.ts) at 1e4, 1e5
- * and 1e6 entities. Timed in one process, in turn, for each size, after warming all four alike (10 calls
- * at 1e4, 2 at 1e5, 1 at 1e6 — dxf-parser not at 1e6, where one call takes ~3 GB): median of 3 runs, 1 run
- * at 1e6:
+ * and 1e6 entities. Timed in one process, in turn, for each size, each contender warmed up alike just
+ * before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20 calls at 1e5, one call at 1e6 — dxf-parser
+ * none at 1e6, where one call takes ~3 GB): median of 3 runs, 1 run at 1e6:
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
  * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
@@ -26,7 +26,7 @@ import { bench, describe } from 'vitest';
 import { readDxf } from '../../server/src/engine/formats/dxf/readDxf';
 import { analyze, DEFAULT_OPTIONS } from '../../server/src/engine/index';
 import { makeLooseDxf, tokenizeFloor } from './looseDxf';
-import { fmt, time } from './timing';
+import { fmt, time, timeSteady } from './timing';
 
 const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });
 const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
@@ -37,17 +37,20 @@ for (const n of sizes) {
   const text = makeLooseDxf(n);
   largest = text;
   const runs = n >= 1e6 ? 1 : 3;
-  // Warm-up of all four alike, as in geometry.bench.ts: one warm-up call left read at 1e4 ~4× above
-  // its steady state (115 ms against ~30 ms).
-  const warmUps = n >= 1e6 ? 1 : n >= 1e5 ? 2 : 10;
-  for (let i = 0; i < warmUps; i++) { tokenizeFloor(text); read(text); analyze(text, 'dxf'); if (n < 1e6) new DxfParser().parseSync(text); }
-  const fl = time(runs, () => tokenizeFloor(text)).ms;
-  const rd = time(runs, () => read(text)).ms;
-  const an = time(runs, () => analyze(text, 'dxf')).ms;
-  const dp = time(runs, () => new DxfParser().parseSync(text)).ms;
+  // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
+  // that every one is timed in its steady state (as in geometry.bench.ts); one call each at 1e6.
+  const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
+  const fl = timeSteady(runs, () => tokenizeFloor(text), warmMs, warmCalls);
+  const rd = timeSteady(runs, () => read(text), warmMs, warmCalls);
+  const an = timeSteady(runs, () => analyze(text, 'dxf'), warmMs, warmCalls);
+  // dxf-parser takes ~3 GB at 1e6: timed there once, with no warm-up call.
+  const parse = () => new DxfParser().parseSync(text);
+  const dp = n >= 1e6 ? { ...time(1, parse), warmUps: 0 } : timeSteady(runs, parse, warmMs, warmCalls);
+  const [flMs, rdMs, anMs, dpMs] = [fl.ms, rd.ms, an.ms, dp.ms];
   console.log(
-    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl)}, read ${fmt(rd)}, analyze ${fmt(an)}, dxf-parser ${fmt(dp)}` +
-      ` | read/floor ${(rd / fl).toFixed(2)}, analyze/floor ${(an / fl).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dp / an).toFixed(2)} (target > 1)`,
+    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(flMs)}, read ${fmt(rdMs)}, analyze ${fmt(anMs)}, dxf-parser ${fmt(dpMs)}` +
+      ` | read/floor ${(rdMs / flMs).toFixed(2)}, analyze/floor ${(anMs / flMs).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dpMs / anMs).toFixed(2)} (target > 1)` +
+      ` | warm-up calls ${fl.warmUps}/${rd.warmUps}/${an.warmUps}/${dp.warmUps}`,
   );
 }
 

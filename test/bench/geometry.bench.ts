@@ -8,8 +8,9 @@
  * - ours: `analyze()` — read, measures, self-intersections, double cuts, nesting, roundness and hull,
  *   the checks;
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
- * Each contender is warmed up alike first (10 calls at 1e4, 2 at 1e5, 1 at 1e6), then timed: median
- * of 5 runs at 1e4, 3 at 1e5, 1 at 1e6 (paper one run from 1e5). Printed: median times, ours/floor and
+ * Each contender is warmed up alike just before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20
+ * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 5 runs at 1e4, 3 at 1e5, 1
+ * at 1e6 (paper one run from 1e5). Printed: median times, ours/floor and
  * paper/ours, crossing counts (the contour has none), and the log-log slope of ours from 1e4 to 1e6
  * (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
  * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
@@ -19,7 +20,7 @@ import paper from 'paper';
 import { bench, describe } from 'vitest';
 import { analyze } from '../../server/src/engine/index';
 import { svgFloor } from './svgFloor';
-import { fmt, time } from './timing';
+import { fmt, time, timeSteady } from './timing';
 
 type Kind = 'line' | 'cubic' | 'arc';
 
@@ -79,18 +80,18 @@ for (const n of sizes) {
     const d = makePathData(n, kind);
     const text = wrap(d);
     const runs = n >= 1e6 ? 1 : n >= 1e5 ? 3 : 5;
-    // Warm-up of all three alike until the optimising compiler is done with the hot paths: at 1e4 one
-    // warm-up call leaves ours ~5× above its steady state (measured: 90, 54, 44, 68, 33, 15, 9, 11 ms).
-    const warmUps = n >= 1e6 ? 1 : n >= 1e5 ? 2 : 10;
-    for (let i = 0; i < warmUps; i++) { floor(text); ours(text); if (n < 1e5) paperFull(d); }
-    const fl = time(runs, () => floor(text));
-    const us = time(runs, () => ours(text));
-    const pa = time(n >= 1e5 ? 1 : runs, () => paperFull(d));
+    // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
+    // that every one is timed in its steady state: ten calls at 1e4 left ours at ~14 ms where it
+    // settles at ~9 ms. At 1e6 one call each (paper none: 10–85 s a call, warm from the smaller sizes).
+    const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
+    const fl = timeSteady(runs, () => floor(text), warmMs, warmCalls);
+    const us = timeSteady(runs, () => ours(text), warmMs, warmCalls);
+    const pa = n >= 1e6 ? time(1, () => paperFull(d)) : timeSteady(n >= 1e5 ? 1 : runs, () => paperFull(d), warmMs, warmCalls);
     oursMs.set(`${kind} ${n}`, us.ms);
     console.log(
       `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +
         ` | ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), paper/ours ${(pa.ms / us.ms).toFixed(2)} (target ≥ 3)` +
-        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0)`,
+        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0) | warm-up calls ${fl.warmUps}/${us.warmUps}/${'warmUps' in pa ? pa.warmUps : 0}`,
     );
   }
 }

@@ -13,5 +13,18 @@ export function time<T>(runs: number, fn: () => T): { ms: number; value: T } {
   return { ms: times[Math.floor(times.length / 2)]!, value };
 }
 
+/**
+ * Steady-state median wall time (ms) of `runs` calls of `fn`, and the last call's value. Before timing,
+ * `fn` is called until `warmUpMs` of wall time have passed or `maxWarmUps` calls were made (at least
+ * one), so the optimising compiler is done with its hot paths: every contender of a comparison gets
+ * the same budget (a fixed count of calls warms a fast contender for far less time than a slow one).
+ */
+export function timeSteady<T>(runs: number, fn: () => T, warmUpMs: number, maxWarmUps: number): { ms: number; value: T; warmUps: number } {
+  const start = performance.now();
+  let warmUps = 0;
+  do { fn(); warmUps++; } while (warmUps < maxWarmUps && performance.now() - start < warmUpMs);
+  return { ...time(runs, fn), warmUps };
+}
+
 /** A duration for the bench output: ms below one second, s above. */
 export const fmt = (ms: number): string => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(0)} ms`);

@@ -70,7 +70,7 @@ export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: num
  * map once the map is collected. Without these, a full collection after an analysis's segments became
  * garbage took the optimised code of every function that reads segments (measures, bounds, pieces,
  * hull), and the next analysis ran unoptimised until the compiler caught up: on 1e5 loose DXF entities
- * analysed 16 times in one process, the steady state was ~10 % slower (DEVELOPERS.md, "Sixth round").
+ * analysed 16 times in one process, the steady state was ~10 % slower (DEVELOPERS.md, "Steady state").
  */
 const keptShapes: Segment[] = [];
 for (const kind of ['line', 'quad', 'cubic', 'arc'] as const) keptShapes.push(makePackedSegment(kind, new Float64Array(12), 0, 0, 0));

@@ -8,6 +8,7 @@
  */
 import type { RawFinding, SourceSpan } from '../../types';
 import { GroupScanner } from './groups';
+import { keepShape } from '../../keepShape';
 
 /** Value spans of the x and y groups of one point (for edits that move the point). */
 export interface PointRef {
@@ -148,6 +149,11 @@ class GroupBuffer {
     this.length = 0;
   }
 
+  /** Drops the groups read (the arrays keep their element kinds). */
+  release(): void {
+    this.length = this.codes.length = this.nums.length = this.vs.length = this.ve.length = this.cs.length = this.pe.length = 0;
+  }
+
   push(sc: GroupScanner): void {
     const i = this.length++;
     this.codes[i] = sc.code;
@@ -284,6 +290,7 @@ class DocumentBuilder {
   constructor(text: string, private readonly sink?: EntitySink) {
     this.text = text;
     this.sc = new GroupScanner(text);
+    keepShape(this);
   }
 
   /** Adds an entity to the current target: the sink when streaming the ENTITIES section. */
@@ -663,12 +670,25 @@ class DocumentBuilder {
 }
 
 /**
+ * Empties what a document holds (layers, blocks, entities, problems) once its reader is done with it:
+ * the latest document builder, whose containers these are, is kept for its layout (keepShape.ts), not
+ * for the file's data.
+ */
+export function releaseDxfDocument(doc: DxfDocument): void {
+  (doc.layers as Map<string, LayerInfo>).clear();
+  (doc.blocks as Map<string, BlockDef>).clear();
+  (doc.entities as DxfEntity[]).length = 0;
+  (doc.problems as RawFinding[]).length = 0;
+}
+
+/**
  * Reads the sections, header, layers, blocks and entities of an ASCII DXF text. Never throws. With a
  * sink, ENTITIES-section entities go to it as they are read instead of into `entities`.
  */
 export function parseDxfDocument(text: string, sink?: EntitySink): DxfDocument {
   const d = new DocumentBuilder(text, sink);
   d.run();
+  d.buf.release();
   return {
     insunits: d.insunits,
     headerSpan: d.headerSpan,

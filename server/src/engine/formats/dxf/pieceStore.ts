@@ -102,6 +102,17 @@ export class PieceStore {
   private readonly names: string[] = [];
   private readonly nameIds = new Map<string, number>();
 
+  /** Drops every piece (see EntityReader.release); the store is not used again. */
+  release(): void {
+    this.pieceCount = this.segmentCount = this.coordinateCount = 0;
+    this.pieces = new Int32Array(0);
+    this.segments = new Int32Array(0);
+    this.coordinates = new Float64Array(0);
+    this.polylines.clear();
+    this.names.length = 0;
+    this.nameIds.clear();
+  }
+
   private getNameId(name: string): number {
     let id = this.nameIds.get(name);
     if (id === undefined) {

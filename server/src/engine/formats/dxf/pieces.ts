@@ -136,6 +136,17 @@ export class PieceBuilder {
     this.ignored = new Set(ignoredLayers.map((name) => name.trim().toUpperCase()));
   }
 
+  /** Drops the pieces and notes once they have been read (see EntityReader.release). */
+  release(): void {
+    this.store.release();
+    const { notAnalysed, hiddenLayers, ignoredLayers, paperSpace, outOfPlane, malformed } = this.notes;
+    notAnalysed.clear();
+    hiddenLayers.clear();
+    ignoredLayers.clear();
+    paperSpace.length = outOfPlane.length = malformed.length = 0;
+    this.layerState.clear();
+  }
+
   /** Builds the pieces of one top-level entity of the ENTITIES section. */
   addTopLevel(e: DxfEntity, order: number): void {
     if (e.paperSpace) {

@@ -1,5 +1,9 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { applyEdits } from '../../../../../test/support/applyEdits';
+import { toPlainSegment } from '../../../../../test/support/shapes';
 import { measureContour } from '../../geometry/measure';
 import type { Arc, Contour, ReadResult, Segment } from '../../types';
 import { readDxf } from './readDxf';
@@ -344,5 +348,26 @@ describe('readDxf: malformed input', () => {
     const r = read(text);
     expect(r.problems).toEqual([]);
     expect(r.contours[0].segments[0]).toMatchObject({ x1: 3, y1: 4 });
+  });
+});
+
+describe('readDxf: the reader kept between reads', () => {
+  // The latest reader and document builder are kept for their layouts and emptied after each read
+  // (keepShape.ts): nothing a result holds may be emptied with them.
+  const root = fileURLToPath(new URL('../../../../../', import.meta.url));
+  const files = [...readdirSync(join(root, 'samples')).map((f) => join(root, 'samples', f)), ...readdirSync(join(root, 'test/fixtures/dxf'), { recursive: true, encoding: 'utf8' }).map((f) => join(root, 'test/fixtures/dxf', f))]
+    .filter((f) => f.endsWith('.dxf'));
+  const snapshot = (r: ReadResult) => JSON.stringify(r, (_, v: unknown) => (v !== null && typeof v === 'object' && 'x0' in v && 'kind' in v ? toPlainSegment(v as Segment) : v));
+
+  it('leaves each result as it was after the next file is read, and reads a file again the same', () => {
+    expect(files.length).toBeGreaterThan(8);
+    for (let i = 0; i < files.length; i++) {
+      const text = readFileSync(files[i]!, 'utf8');
+      const r = read(text);
+      const before = snapshot(r);
+      read(readFileSync(files[(i + 1) % files.length]!, 'utf8'));
+      expect(snapshot(r), files[i]).toBe(before);
+      expect(snapshot(read(text)), files[i]).toBe(before);
+    }
   });
 });

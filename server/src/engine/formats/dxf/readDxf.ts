@@ -13,12 +13,13 @@ import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, SourceSpan, TextEdit, UnitsInfo } from '../../types';
-import { findPointRef, parseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
+import { findPointRef, parseDxfDocument, releaseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
 import { PieceBuilder } from './pieces';
 import type { PieceStore, PolylineFixInfo } from './pieceStore';
 import { getDxfUnits } from './units';
 import { getVectorLength } from '../../geometry/length';
+import { keepShape } from '../../keepShape';
 
 export interface ReadDxfOptions {
   readonly assumedUnit: AssumedUnit;
@@ -50,12 +51,17 @@ export function readDxf(text: string, options: ReadDxfOptions): ReadResult {
   const doc = parseDxfDocument(text, reader);
   if (doc.lateSections) {
     reader = new EntityReader(text, options);
-    for (const e of parseDxfDocument(text).entities) reader.entity(e, doc);
+    const again = parseDxfDocument(text);
+    for (const e of again.entities) reader.entity(e, doc);
+    releaseDxfDocument(again);
   }
   const { builder, units } = reader.finish(doc);
   problems.push(...doc.problems, ...reader.problems);
   reportNotes(builder, doc.layers, problems);
   const contours = buildContours(text, builder.store, units, doc.eol, options.nearClosedToleranceMm ?? Infinity, problems);
+  // The reader and the document builder are kept for their layouts (keepShape.ts): drop their data.
+  reader.release();
+  releaseDxfDocument(doc);
   return { format: 'dxf', yAxis: 'up', units, contours, problems };
 }
 
@@ -78,7 +84,18 @@ class EntityReader implements EntitySink {
    */
   private table = new Int32Array(2 * 1024);
 
-  constructor(private readonly text: string, private readonly options: ReadDxfOptions) {}
+  constructor(private readonly text: string, private readonly options: ReadDxfOptions) {
+    keepShape(this);
+  }
+
+  /** Drops this read's data (kept entities, duplicate table, problems, pieces); see keepShape.ts. */
+  release(): void {
+    this.kept = new Int32Array(0);
+    this.keptCount = 0;
+    this.table = new Int32Array(0);
+    this.problems.length = 0;
+    this.builder?.release();
+  }
 
   private start(known: DocumentSoFar): PieceBuilder {
     this.units = getDxfUnits(known.insunits, known.headerSpan, this.options.assumedUnit, this.problems);

@@ -90,8 +90,11 @@ const MAX_CHORDS_PER_PIECE = 4096;
 class PolylineWriter {
   xs: Float64Array; ys: Float64Array; n = 0;
   first: Int32Array; segment: Int32Array; onCircle: Uint8Array; pieces = 0;
-  /** The polyline's deviations, as Polyline has them. */
-  deviation = 0; offCircleDeviation = 0;
+  /** The polyline's deviations, as Polyline has them: NaN until flattenContour sets them, a double from
+   *  the start, so that every writer has one layout. A field that starts as a small integer changes
+   *  layout at its first double, and the module's shared writer, made at load, would keep the old one
+   *  while the layout of huge contours' own writers died with them (keepShape.ts). */
+  deviation = NaN; offCircleDeviation = NaN;
   constructor(capacity: number) {
     this.xs = new Float64Array(capacity); this.ys = new Float64Array(capacity);
     this.first = new Int32Array(capacity); this.segment = new Int32Array(capacity);

@@ -35,6 +35,7 @@ import { findSelfIntersections } from './intersect';
 import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPolyline, type HullMeasures, type Polyline } from './hull';
 import { getVectorLength } from './length';
 import { distToSegment, simplifyClosedPolyline } from './simplify';
+import { keepShape } from '../keepShape';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -553,7 +554,8 @@ export function createOutlineDistance(outline: SearchOutline) {
   const pieces = outline.pieces, n = pieces.length;
   // The pieces' boxes: their extent, and for the inside test an index of them when scanning them all would cost more.
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const index = n > SCAN_PIECES ? new Flatbush(n) : null;
+  // The latest index is kept for its layout (keepShape.ts); it holds at most MAX_ROUNDNESS_PIECES boxes.
+  const index = n > SCAN_PIECES ? keepShape(new Flatbush(n)) : null;
   for (const p of pieces) {
     const box = pieceBox(p);
     index?.add(...box);

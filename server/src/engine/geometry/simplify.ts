@@ -145,7 +145,7 @@ function thinLoop(
   const kept = new Uint8Array(m + 1);
   let count = 0;
   for (let p = 0; p <= m; p++) if (pinned[p]) { kept[p] = 1; count += p < m ? 1 : 0; }
-  const heap = new RunHeap();
+  const heap = runHeap.reset();
   let work = 0;
   const workCap = workPerVertex * m;
   const push = (lo: number, hi: number, cap: number): boolean => {
@@ -198,6 +198,12 @@ class RunHeap {
   private readonly value: number[] = [];
   private readonly out = { lo: 0, hi: 0, split: 0, value: 0 };
 
+  /** Empties the heap; returns it. */
+  reset(): this {
+    this.lo.length = this.hi.length = this.split.length = this.value.length = 0;
+    return this;
+  }
+
   get size(): number {
     return this.value.length;
   }
@@ -247,3 +253,7 @@ class RunHeap {
     this.lo[i] = lo; this.hi[i] = hi; this.split[i] = split; this.value[i] = value;
   }
 }
+
+/** The one heap every thinning uses (emptied first), so its layout, and the code compiled for it,
+ *  outlive the garbage collections between analyses (see keepShape.ts). */
+const runHeap = new RunHeap();

@@ -13,6 +13,7 @@
  * … x2 y2; cubic … x3 y3; arc x0 y0 x1 y1 cx cy ux uy vx vy theta0 sweep).
  */
 import type { Arc, Cubic, Line, Quad, Segment, SourceSpan } from '../types';
+import { keepShape } from '../keepShape';
 
 abstract class PackedSegment {
   constructor(readonly c: Float64Array, readonly o: number, private readonly spanStart: number, private readonly spanEnd: number) {}
@@ -65,15 +66,12 @@ export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: num
 }
 
 /**
- * One packed segment of each kind, kept for the life of the process. V8 holds an object layout (a
- * "map") only through the objects that have it, and throws away the optimised code compiled against a
- * map once the map is collected. Without these, a full collection after an analysis's segments became
- * garbage took the optimised code of every function that reads segments (measures, bounds, pieces,
- * hull), and the next analysis ran unoptimised until the compiler caught up: on 1e5 loose DXF entities
- * analysed 16 times in one process, the steady state was ~10 % slower (DEVELOPERS.md, "Steady state").
+ * One packed segment of each kind, kept for the life of the process for its layout (keepShape.ts):
+ * without them, a full collection after an analysis's segments became garbage took the optimised code
+ * of every function that reads segments (measures, bounds, pieces, hull), and the next analysis ran
+ * unoptimised until the compiler caught up (~10 % of the steady state on 1e5 loose DXF entities).
  */
-const keptShapes: Segment[] = [];
-for (const kind of ['line', 'quad', 'cubic', 'arc'] as const) keptShapes.push(makePackedSegment(kind, new Float64Array(12), 0, 0, 0));
+for (const kind of ['line', 'quad', 'cubic', 'arc'] as const) keepShape(makePackedSegment(kind, new Float64Array(12), 0, 0, 0));
 
 /** The same segment with another span (a packed one shares its coordinates). */
 export function withSpan(s: Segment, span: SourceSpan): Segment {
@@ -92,6 +90,12 @@ export class PackedSegmentWriter implements SegmentSink {
 
   constructor(estimate: number) {
     this.chunk = new Float64Array(Math.min(MAX_CHUNK, Math.max(16, estimate)));
+  }
+
+  /** Drops the chunk written last (the segments made keep theirs); the writer is not used again. */
+  release(): void {
+    this.chunk = new Float64Array(0);
+    this.used = 0;
   }
 
   /** Room for n coordinates: their offset in `chunk` (a new chunk when the current one is full). */

@@ -3,6 +3,7 @@ import { arcFromSvgEndpoints, getSvgArcCentre, SVG_ARC, svgArcCentre } from '../
 import { isIdentityMatrix, type Matrix } from '../../geometry/transform';
 import { PackedSegmentWriter, plainSegments, type SegmentSink } from '../../model/packedSegment';
 import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
+import { keepShape } from '../../keepShape';
 
 /**
  * Position-keeping reader for SVG path data (the `d` attribute).
@@ -61,7 +62,9 @@ export interface ParsedPathData {
 export function parsePathData(d: string, baseOffset: number, matrix: Matrix | null = null): ParsedPathData {
   const parser = new PathDataParser(d, baseOffset, matrix !== null && !isIdentityMatrix(matrix) ? matrix : null);
   parser.run();
-  return parser.error ? { subpaths: parser.subpaths, error: parser.error } : { subpaths: parser.subpaths };
+  const parsed = parser.error ? { subpaths: parser.subpaths, error: parser.error } : { subpaths: parser.subpaths };
+  parser.release();
+  return parsed;
 }
 
 // Character codes.
@@ -129,7 +132,7 @@ interface SubpathBuilder {
 }
 
 class PathDataParser {
-  readonly subpaths: PathSubpath[] = [];
+  subpaths: PathSubpath[] = [];
   error: PathDataError | undefined;
 
   private readonly n: number;
@@ -169,9 +172,20 @@ class PathDataParser {
    *  characters of path data (typical data needs less; more chunks come as needed). */
   private readonly writer: PackedSegmentWriter;
 
-  constructor(private readonly d: string, private readonly base: number, private readonly matrix: Matrix | null) {
+  constructor(private d: string, private readonly base: number, private readonly matrix: Matrix | null) {
     this.n = d.length;
     this.writer = new PackedSegmentWriter(d.length >> 1);
+    keepShape(this);
+  }
+
+  /** Drops the path read (text, subpaths, coordinates): the latest parser is kept for its layout
+   *  (keepShape.ts), not its data. */
+  release(): void {
+    this.d = '';
+    this.subpaths = [];
+    this.error = undefined;
+    this.sub = null;
+    this.writer.release();
   }
 
   run(): void {

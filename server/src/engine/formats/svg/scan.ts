@@ -1,5 +1,6 @@
 import { SaxesParser } from 'saxes';
 import type { SourceSpan } from '../../types';
+import { keepShape } from '../../keepShape';
 
 /**
  * XML → a light element tree with exact source spans, using `saxes` for well-formedness.
@@ -162,7 +163,8 @@ export function scanDocument(text: string): ScannedDocument {
 }
 
 function scanDocumentInChunks(text: string, keepLongValues: boolean): ScannedDocument {
-  const parser = new SaxesParser({ position: true });
+  // The latest parser is kept for its layout (keepShape.ts); it holds no more than the text.
+  const parser = keepShape(new SaxesParser({ position: true }));
   const byId = new Map<string, SvgElement>();
   const stack: MutableElement[] = [];
   let root: MutableElement | null = null;

@@ -9,7 +9,7 @@
  * code of every function that used them: the next analysis runs unoptimised until the compiler has
  * caught up (`node --trace-deopt` reports it as `reason: weak objects`). Measured on 1e5 loose DXF
  * entities analysed 16 times in one process: the DXF reader's code was thrown away after every other
- * analysis, and keeping its objects made the steady state ~15 % faster (DEVELOPERS.md, "Steady state").
+ * analysis, and keeping its objects took ~25 % off the steady state (DEVELOPERS.md, "Steady state").
  *
  * A kept object is the latest one its class handed over, until the next one replaces it. A class
  * whose objects hold a file's data empties them when its work is done (a `release` method), so what

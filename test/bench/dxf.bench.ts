@@ -8,6 +8,7 @@
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
  * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
+ * (read and analyze from the engine bundled as the server and the CLI run it: shippedEngine.ts)
  * - dxf-parser: its parseSync alone (no positions, no geometry).
  * Printed: times, read/floor and analyze/floor (target for analyze ≤ 2), dxf-parser/analyze (target > 1).
  * Peak RSS at 1e6 (target ≤ 1 GB) is measured in a child process that only reads the file and runs
@@ -23,9 +24,8 @@ import { fileURLToPath } from 'node:url';
 import DxfParser from 'dxf-parser';
 import { buildSync } from 'esbuild';
 import { bench, describe } from 'vitest';
-import { readDxf } from '../../server/src/engine/formats/dxf/readDxf';
-import { analyze, DEFAULT_OPTIONS } from '../../server/src/engine/index';
 import { makeLooseDxf, tokenizeFloor } from './looseDxf';
+import { analyze, DEFAULT_OPTIONS, readDxf } from './shippedEngine';
 import { fmt, time, timeSteady } from './timing';
 
 const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });

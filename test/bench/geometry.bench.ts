@@ -6,7 +6,7 @@
  * 1e5 and 1e6. Timed in one process, in turn, for each n and kind:
  * - floor: XML parse with saxes + a plain number scan of the path data (no model, no geometry);
  * - ours: `analyze()` — read, measures, self-intersections, double cuts, nesting, roundness and hull,
- *   the checks;
+ *   the checks — of the engine bundled as the server and the CLI run it (shippedEngine.ts);
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
  * Each contender is warmed up alike just before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20
  * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 5 runs at 1e4, 3 at 1e5, 1
@@ -18,7 +18,7 @@
  */
 import paper from 'paper';
 import { bench, describe } from 'vitest';
-import { analyze } from '../../server/src/engine/index';
+import { analyze } from './shippedEngine';
 import { svgFloor } from './svgFloor';
 import { fmt, time, timeSteady } from './timing';
 

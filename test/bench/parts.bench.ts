@@ -7,12 +7,12 @@
  * form for a whole circle). Shapes: circle, rectangle, slot, rounded rectangle, hexagon and an L, each
  * 5000 times on a 10 mm grid inside one rounded outer boundary. Timed in one process, in turn, for each
  * shape, after 2 warm-up calls of both: the floor (saxes + a number scan of every attribute,
- * svgFloor.ts) and ours (`analyze()`), median of 5. Printed: both times, µs per contour and
+ * svgFloor.ts) and ours (`analyze()` of the engine bundled as shipped, shippedEngine.ts), median of 5. Printed: both times, µs per contour and
  * ours/floor. No target: the figures track the cost of roundness per contour (recorded in
  * DEVELOPERS.md). The machine is noisy: compare ratios of one run.
  */
 import { bench, describe } from 'vitest';
-import { analyze } from '../../server/src/engine/index';
+import { analyze } from './shippedEngine';
 import { svgFloor } from './svgFloor';
 import { fmt, time } from './timing';
 

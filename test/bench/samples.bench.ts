@@ -6,7 +6,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { bench, describe } from 'vitest';
-import { analyze, getFormatForPath } from '../../server/src/engine/index';
+import { analyze, getFormatForPath } from './shippedEngine';
 
 const dir = join(__dirname, '../../samples');
 

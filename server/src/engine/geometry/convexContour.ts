@@ -113,7 +113,7 @@ class TurnWalk {
  * The walk along a contour from its start (ox, oy): its turns, its area from the start, and the gaps
  * it bridges between one piece's end and the next one's start. One is reused for every contour
  * (`start` resets it): its numbers change in place, where a closure's or a fresh object's would
- * each be a new heap number (~700 B a small contour, a quarter of a million of them in a big drawing).
+ * each be a new heap number (~600 B a small contour, a quarter of a million of them in a big drawing).
  */
 class PathWalk {
   readonly walk = new TurnWalk();

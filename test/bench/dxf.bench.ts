@@ -4,7 +4,7 @@
  * Input: loose LINE/ARC entities (open outlines of 3 lines + 1 arc, shuffled; looseDxf.ts) at 1e4, 1e5
  * and 1e6 entities. Timed in one process, in turn, for each size, each contender warmed up alike just
  * before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20 calls at 1e5, one call at 1e6 — dxf-parser
- * none at 1e6, where one call takes ~3 GB): median of 3 runs, 1 run at 1e6:
+ * none at 1e6, where one call takes ~3 GB): median of 15 runs at 1e4, 5 at 1e5, 1 run at 1e6:
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
  * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
@@ -36,7 +36,8 @@ let largest = '';
 for (const n of sizes) {
   const text = makeLooseDxf(n);
   largest = text;
-  const runs = n >= 1e6 ? 1 : 3;
+  // One call at 1e4 varies 18–52 ms within a process (collections): a median of 15 is steadier.
+  const runs = n >= 1e6 ? 1 : n >= 1e5 ? 5 : 15;
   // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
   // that every one is timed in its steady state (as in geometry.bench.ts); one call each at 1e6.
   const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];

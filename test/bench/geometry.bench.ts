@@ -9,8 +9,8 @@
  *   the checks — of the engine bundled as the server and the CLI run it (shippedEngine.ts);
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
  * Each contender is warmed up alike just before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20
- * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 5 runs at 1e4, 3 at 1e5, 1
- * at 1e6 (paper one run from 1e5). Printed: median times, ours/floor and
+ * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 15 runs at 1e4, 5 at 1e5, 1
+ * at 1e6 (paper 3 at 1e5). Printed: median times, ours/floor and
  * paper/ours, crossing counts (the contour has none), and the log-log slope of ours from 1e4 to 1e6
  * (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
  * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
@@ -79,14 +79,14 @@ for (const n of sizes) {
   for (const kind of kinds) {
     const d = makePathData(n, kind);
     const text = wrap(d);
-    const runs = n >= 1e6 ? 1 : n >= 1e5 ? 3 : 5;
+    const runs = n >= 1e6 ? 1 : n >= 1e5 ? 5 : 15;
     // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
     // that every one is timed in its steady state: ten calls at 1e4 left ours at ~14 ms where it
     // settles at ~9 ms. At 1e6 one call each (paper none: 10–85 s a call, warm from the smaller sizes).
     const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
     const fl = timeSteady(runs, () => floor(text), warmMs, warmCalls);
     const us = timeSteady(runs, () => ours(text), warmMs, warmCalls);
-    const pa = n >= 1e6 ? time(1, () => paperFull(d)) : timeSteady(n >= 1e5 ? 1 : runs, () => paperFull(d), warmMs, warmCalls);
+    const pa = n >= 1e6 ? time(1, () => paperFull(d)) : timeSteady(n >= 1e5 ? 3 : runs, () => paperFull(d), warmMs, warmCalls);
     oursMs.set(`${kind} ${n}`, us.ms);
     console.log(
       `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +

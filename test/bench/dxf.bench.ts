@@ -26,7 +26,7 @@ import { buildSync } from 'esbuild';
 import { bench, describe } from 'vitest';
 import { makeLooseDxf, tokenizeFloor } from './looseDxf';
 import { analyze, DEFAULT_OPTIONS, readDxf } from './shippedEngine';
-import { fmt, time, timeSteady } from './timing';
+import { fmt, timeSteady } from './timing';
 
 const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });
 const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
@@ -46,11 +46,10 @@ for (const n of sizes) {
   const an = timeSteady(runs, () => analyze(text, 'dxf'), warmMs, warmCalls);
   // dxf-parser takes ~3 GB at 1e6: timed there once, with no warm-up call.
   const parse = () => new DxfParser().parseSync(text);
-  const dp = n >= 1e6 ? { ...time(1, parse), warmUps: 0 } : timeSteady(runs, parse, warmMs, warmCalls);
-  const [flMs, rdMs, anMs, dpMs] = [fl.ms, rd.ms, an.ms, dp.ms];
+  const dp = timeSteady(runs, parse, warmMs, n >= 1e6 ? 0 : warmCalls);
   console.log(
-    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(flMs)}, read ${fmt(rdMs)}, analyze ${fmt(anMs)}, dxf-parser ${fmt(dpMs)}` +
-      ` | read/floor ${(rdMs / flMs).toFixed(2)}, analyze/floor ${(anMs / flMs).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dpMs / anMs).toFixed(2)} (target > 1)` +
+    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, read ${fmt(rd.ms)}, analyze ${fmt(an.ms)}, dxf-parser ${fmt(dp.ms)}` +
+      ` | read/floor ${(rd.ms / fl.ms).toFixed(2)}, analyze/floor ${(an.ms / fl.ms).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dp.ms / an.ms).toFixed(2)} (target > 1)` +
       ` | warm-up calls ${fl.warmUps}/${rd.warmUps}/${an.warmUps}/${dp.warmUps}`,
   );
 }

@@ -20,7 +20,7 @@ import paper from 'paper';
 import { bench, describe } from 'vitest';
 import { analyze } from './shippedEngine';
 import { svgFloor } from './svgFloor';
-import { fmt, time, timeSteady } from './timing';
+import { fmt, timeSteady } from './timing';
 
 type Kind = 'line' | 'cubic' | 'arc';
 
@@ -86,12 +86,12 @@ for (const n of sizes) {
     const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
     const fl = timeSteady(runs, () => floor(text), warmMs, warmCalls);
     const us = timeSteady(runs, () => ours(text), warmMs, warmCalls);
-    const pa = n >= 1e6 ? time(1, () => paperFull(d)) : timeSteady(n >= 1e5 ? 3 : runs, () => paperFull(d), warmMs, warmCalls);
+    const pa = timeSteady(n >= 1e6 ? 1 : n >= 1e5 ? 3 : runs, () => paperFull(d), warmMs, n >= 1e6 ? 0 : warmCalls);
     oursMs.set(`${kind} ${n}`, us.ms);
     console.log(
       `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +
         ` | ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), paper/ours ${(pa.ms / us.ms).toFixed(2)} (target ≥ 3)` +
-        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0) | warm-up calls ${fl.warmUps}/${us.warmUps}/${'warmUps' in pa ? pa.warmUps : 0}`,
+        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0) | warm-up calls ${fl.warmUps}/${us.warmUps}/${pa.warmUps}`,
     );
   }
 }

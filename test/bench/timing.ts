@@ -15,14 +15,14 @@ export function time<T>(runs: number, fn: () => T): { ms: number; value: T } {
 
 /**
  * Steady-state median wall time (ms) of `runs` calls of `fn`, and the last call's value. Before timing,
- * `fn` is called until `warmUpMs` of wall time have passed or `maxWarmUps` calls were made (at least
- * one), so the optimising compiler is done with its hot paths: every contender of a comparison gets
+ * `fn` is called until `warmUpMs` of wall time have passed or `maxWarmUps` calls were made (none
+ * when 0), so the optimising compiler is done with its hot paths: every contender of a comparison gets
  * the same budget (a fixed count of calls warms a fast contender for far less time than a slow one).
  */
 export function timeSteady<T>(runs: number, fn: () => T, warmUpMs: number, maxWarmUps: number): { ms: number; value: T; warmUps: number } {
   const start = performance.now();
   let warmUps = 0;
-  do { fn(); warmUps++; } while (warmUps < maxWarmUps && performance.now() - start < warmUpMs);
+  while (warmUps < maxWarmUps && (warmUps === 0 || performance.now() - start < warmUpMs)) { fn(); warmUps++; }
   return { ...time(runs, fn), warmUps };
 }
 

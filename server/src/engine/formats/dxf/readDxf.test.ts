@@ -353,7 +353,8 @@ describe('readDxf: malformed input', () => {
 
 describe('readDxf: the reader kept between reads', () => {
   // The latest reader and document builder are kept for their layouts and emptied after each read
-  // (keepShape.ts): nothing a result holds may be emptied with them.
+  // (keepShape.ts): nothing a result holds may be emptied with them. An invariant of our own (no
+  // outside source applies): the files are every DXF of samples/ and test/fixtures.
   const root = fileURLToPath(new URL('../../../../../', import.meta.url));
   const files = [...readdirSync(join(root, 'samples')).map((f) => join(root, 'samples', f)), ...readdirSync(join(root, 'test/fixtures/dxf'), { recursive: true, encoding: 'utf8' }).map((f) => join(root, 'test/fixtures/dxf', f))]
     .filter((f) => f.endsWith('.dxf'));

@@ -4,22 +4,35 @@
  * one packed array of segment spans, so they cross from an analysis worker to the protocol thread
  * in milliseconds instead of seconds.
  */
-import type { AnalysisResult, Contour, ContourResult, SourceSpan } from './types';
+import { withContourShapes } from './geometry/shapes';
+import type { AnalysisResult, Contour, ContourResult, ContourShape, OutlineAnalysis, OutlineContourResult, SourceSpan } from './types';
 
 /** A contour without segments; `segmentSpans` holds each segment's source span as [start, end, start, end, …]. */
 export interface ContourOutline extends Omit<Contour, 'segments'> {
   readonly segmentSpans: Int32Array;
 }
 
+/** The figures of an outline analysis's contour (no roundness and hull yet). */
+export interface OutlineContourFigures extends Omit<OutlineContourResult, 'contour'> {
+  readonly contour: ContourOutline;
+}
+
 export interface ContourFigures extends Omit<ContourResult, 'contour'> {
   readonly contour: ContourOutline;
 }
 
-export interface AnalysisFigures extends Omit<AnalysisResult, 'contours'> {
+/** The figures of an outline analysis: what the diagnostics need. */
+export interface OutlineFigures extends Omit<OutlineAnalysis, 'contours'> {
+  readonly contours: readonly OutlineContourFigures[];
+}
+
+export interface AnalysisFigures extends OutlineFigures {
   readonly contours: readonly ContourFigures[];
 }
 
-export function toFigures(result: AnalysisResult): AnalysisFigures {
+export function toFigures(result: AnalysisResult): AnalysisFigures;
+export function toFigures(result: OutlineAnalysis): OutlineFigures;
+export function toFigures(result: OutlineAnalysis): OutlineFigures {
   return {
     ...result,
     contours: result.contours.map(({ contour, ...rest }) => {
@@ -33,6 +46,11 @@ export function toFigures(result: AnalysisResult): AnalysisFigures {
       return { ...rest, contour: { ...outline, segmentSpans } };
     }),
   };
+}
+
+/** The figures with each contour's roundness and hull (`shapes` by position, from `measureShapes`). */
+export function withShapes(figures: OutlineFigures, shapes: readonly ContourShape[]): AnalysisFigures {
+  return { ...figures, contours: withContourShapes(figures.contours, shapes) };
 }
 
 /**

@@ -1,6 +1,8 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { wrapSvg } from '../../../test/support/checkCases';
-import { analyze } from './index';
+import { AnalysisCancelled, analyze, analyzeOutlines, getFormatForPath, measureShapes, toFigures, withShapes } from './index';
 
 describe('analyze', () => {
   it('sorts findings by span start, then end, and keeps the check order for equal spans', () => {
@@ -34,5 +36,37 @@ describe('analyze', () => {
     const { findings } = analyze(wrapSvg(body.join('')), 'svg');
     expect(findings.map((f) => f.checkId)).toEqual(['open-contour', 'zero-length-segment', 'open-contour', 'zero-length-segment', 'open-contour', 'zero-length-segment']);
     for (let i = 1; i < findings.length; i++) expect(findings[i - 1]!.span.start).toBeLessThan(findings[i]!.span.start);
+  });
+});
+
+describe('analyzeOutlines and measureShapes: the analysis in two steps', () => {
+  const dir = fileURLToPath(new URL('../../../samples/', import.meta.url));
+  const samples = readdirSync(dir).filter((f) => getFormatForPath(f));
+
+  it('give together exactly what analyze gives, for every sample (an invariant of our own)', () => {
+    expect(samples.length).toBeGreaterThanOrEqual(9);
+    for (const file of samples) {
+      const text = readFileSync(dir + file, 'utf8');
+      const format = getFormatForPath(file)!;
+      const outlines = analyzeOutlines(text, format);
+      const whole = analyze(text, format);
+      const { contours, ...rest } = whole;
+      expect(outlines, file).toEqual({ ...rest, contours: contours.map(({ contour, metrics, geometry: { roundness: _r, hull: _h, ...outline } }) => ({ contour, metrics, geometry: outline })) });
+      expect(withShapes(toFigures(outlines), measureShapes(outlines)), file).toEqual(toFigures(whole));
+    }
+  });
+
+  it('leave the roundness and hull out of the first step', () => {
+    const [c] = analyzeOutlines(wrapSvg('<rect width="20" height="10"/>'), 'svg').contours;
+    expect(Object.keys(c!.geometry).sort()).toEqual(['depth', 'overlaps', 'parent', 'selfIntersections']);
+  });
+
+  it('stop measuring shapes between contours once cancelled', () => {
+    const outlines = analyzeOutlines(wrapSvg('<rect width="20" height="10"/><rect x="30" width="20" height="10"/>'), 'svg');
+    let polls = 0;
+    // The first poll comes after the first contour's shape.
+    expect(() => measureShapes(outlines, () => ++polls >= 1)).toThrow(AnalysisCancelled);
+    expect(polls).toBe(1);
+    expect(measureShapes(outlines, () => false)).toHaveLength(2);
   });
 });

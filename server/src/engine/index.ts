@@ -8,23 +8,26 @@ import { readDxf } from './formats/dxf/readDxf';
 import { readSvg } from './formats/svg/readSvg';
 import { getFileGeometry } from './geometry/fileGeometry';
 import { measureContourDetailed } from './geometry/measure';
+import { measureContourShapes, withContourShapes } from './geometry/shapes';
 import { DEFAULT_NEAR_CLOSED_TOLERANCE_MM } from './geometry/tolerances';
 import type {
   AnalysisOptions,
   AnalysisResult,
-  ContourGeometry,
-  ContourResult,
+  ContourShape,
   FileFormat,
   Finding,
   MeasuredContour,
+  OutlineAnalysis,
+  OutlineContourResult,
+  OutlineGeometry,
   ReadResult,
 } from './types';
 
 export type * from './types';
 export { checks, getCheck } from './checks/index';
 export { formatNumber } from './format';
-export { getContourAt, getPlacement, toFigures } from './figures';
-export type { AnalysisFigures, ContourFigures, ContourOutline } from './figures';
+export { getContourAt, getPlacement, toFigures, withShapes } from './figures';
+export type { AnalysisFigures, ContourFigures, ContourOutline, OutlineContourFigures, OutlineFigures } from './figures';
 
 export const DEFAULT_OPTIONS: AnalysisOptions = {
   nearClosedToleranceMm: DEFAULT_NEAR_CLOSED_TOLERANCE_MM,
@@ -35,10 +38,10 @@ export const DEFAULT_OPTIONS: AnalysisOptions = {
 
 /** A contour's result while it is built: its geometry is set once the file's geometry is known. */
 interface ContourSlot extends MeasuredContour {
-  geometry: ContourGeometry | null;
+  geometry: OutlineGeometry | null;
 }
 
-/** Thrown by `analyze` when `options.isCancelled()` returns true. */
+/** Thrown by the analysis when `options.isCancelled()` returns true. */
 export class AnalysisCancelled extends Error {
   constructor() {
     super('Analysis cancelled');
@@ -87,12 +90,27 @@ function sortBySpan(findings: Finding[]): void {
   for (let k = 0; k < n; k++) findings[k] = byPosition[order[k]!]!;
 }
 
-/** Analyses one file's text. Throws `AnalysisCancelled` when cancelled; never throws on bad input. */
-export function analyze(text: string, format: FileFormat, partial: Partial<AnalysisOptions> = {}): AnalysisResult {
-  const options: AnalysisOptions = { ...DEFAULT_OPTIONS, ...partial };
-  const checkCancelled = () => {
-    if (options.isCancelled?.()) throw new AnalysisCancelled();
+/** Calls that throw `AnalysisCancelled` once `isCancelled()` returns true. */
+function cancelCheck(isCancelled: (() => boolean) | undefined): () => void {
+  return () => {
+    if (isCancelled?.()) throw new AnalysisCancelled();
   };
+}
+
+/** Analyses one file's text, every figure included. Throws `AnalysisCancelled` when cancelled; never throws on bad input. */
+export function analyze(text: string, format: FileFormat, partial: Partial<AnalysisOptions> = {}): AnalysisResult {
+  const outlines = analyzeOutlines(text, format, partial);
+  return { ...outlines, contours: withContourShapes(outlines.contours, measureShapes(outlines, partial.isCancelled)) };
+}
+
+/**
+ * Analyses one file's text up to its findings: everything but the contours' roundness and hull
+ * (`measureShapes`), so an editor can show the problems first. Throws `AnalysisCancelled` when
+ * cancelled; never throws on bad input.
+ */
+export function analyzeOutlines(text: string, format: FileFormat, partial: Partial<AnalysisOptions> = {}): OutlineAnalysis {
+  const options: AnalysisOptions = { ...DEFAULT_OPTIONS, ...partial };
+  const checkCancelled = cancelCheck(options.isCancelled);
   const readResult = read(text, format, options);
   checkCancelled();
   // Each contour's result object is made once: measured here, its geometry set below (a spread into
@@ -108,7 +126,7 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   checkCancelled();
   const geometry = getFileGeometry(slots, checkCancelled, options.isCancelled);
   for (let i = 0; i < slots.length; i++) slots[i]!.geometry = geometry.contours[i]!;
-  const contours = slots as readonly ContourSlot[] as readonly ContourResult[];
+  const contours = slots as readonly ContourSlot[] as readonly OutlineContourResult[];
   // Findings are resolved as they are reported, each copied once with its check id, severity and
   // message. Not by `{ ...f, checkId }`: in V8 a spread followed by more properties gives every object
   // a hidden class of its own (~300 B and several µs a finding).
@@ -135,5 +153,13 @@ export function analyze(text: string, format: FileFormat, partial: Partial<Analy
   }
   sortBySpan(findings);
   return { format, yAxis: readResult.yAxis, units: readResult.units, contours, summary: geometry.summary, parts: geometry.nesting.parts, findings };
+}
+
+/**
+ * The roundness and hull of each contour of an outline analysis, by position (join them with
+ * `withShapes` or as `analyze` does). Throws `AnalysisCancelled` when `isCancelled()` turns true.
+ */
+export function measureShapes(analysis: OutlineAnalysis, isCancelled?: () => boolean): ContourShape[] {
+  return measureContourShapes(analysis.contours, cancelCheck(isCancelled));
 }
 

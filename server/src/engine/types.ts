@@ -260,19 +260,30 @@ export interface ContourHull {
   readonly convexity: Measured;
 }
 
-/** What the file-wide geometry says about one contour. */
-export interface ContourGeometry {
+/** What the file-wide geometry says about one contour: all the checks need (see `analyzeOutlines`). */
+export interface OutlineGeometry {
   readonly selfIntersections: readonly SelfIntersection[];
   readonly overlaps: readonly ContourOverlap[];
   /** Index of the innermost closed contour containing this one, or null. */
   readonly parent: number | null;
   /** Number of closed contours containing it: even = material boundary, odd = hole (even-odd rule). */
   readonly depth: number;
+}
+
+/** A contour's roundness and hull: figures no check needs, measured after the findings (`measureShapes`). */
+export interface ContourShape {
   readonly roundness: ContourRoundness;
   readonly hull: ContourHull;
 }
 
-export interface ContourResult extends MeasuredContour {
+export interface ContourGeometry extends OutlineGeometry, ContourShape {}
+
+/** A contour as the checks see it: measured, with its file-wide geometry but not yet its shape. */
+export interface OutlineContourResult extends MeasuredContour {
+  readonly geometry: OutlineGeometry;
+}
+
+export interface ContourResult extends OutlineContourResult {
   readonly geometry: ContourGeometry;
 }
 
@@ -298,16 +309,22 @@ export interface Part {
   readonly holesTurnOpposite: boolean | null;
 }
 
-export interface AnalysisResult {
+/** An analysis up to its findings: every figure but the contours' roundness and hull. */
+export interface OutlineAnalysis {
   readonly format: FileFormat;
   readonly yAxis: YAxis;
   readonly units: UnitsInfo;
-  readonly contours: readonly ContourResult[];
+  readonly contours: readonly OutlineContourResult[];
   readonly summary: FileSummary;
   /** The parts, in the order of their outer boundaries. */
   readonly parts: readonly Part[];
   /** All problems, sorted by position; severities resolved, `off` ones removed. */
   readonly findings: readonly Finding[];
+}
+
+/** A whole analysis: the outline analysis with every contour's roundness and hull. */
+export interface AnalysisResult extends OutlineAnalysis {
+  readonly contours: readonly ContourResult[];
 }
 
 /** Units a user may choose to assume for files that declare none. */

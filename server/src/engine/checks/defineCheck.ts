@@ -1,11 +1,12 @@
 import type { FileGeometry } from '../geometry/fileGeometry';
-import type { AnalysisOptions, ContourResult, RawFinding, ReadResult, Severity } from '../types';
+import type { AnalysisOptions, OutlineContourResult, RawFinding, ReadResult, Severity } from '../types';
 
-/** What a check sees: the read model, each contour with its figures, the file's geometry (computed
- *  once per analysis, shared by all checks) and a way to report. */
+/** What a check sees: the read model, each contour with its figures (not its roundness and hull, which
+ *  come after the findings), the file's geometry (computed once per analysis, shared by all checks)
+ *  and a way to report. */
 export interface CheckContext {
   readonly read: ReadResult;
-  readonly contours: readonly ContourResult[];
+  readonly contours: readonly OutlineContourResult[];
   readonly geometry: FileGeometry;
   /** Per contour (by position): the length of its shortest segment, as measured (see DetailedContourMetrics). */
   readonly shortestSegmentMm: Float64Array;

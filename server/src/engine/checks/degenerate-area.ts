@@ -1,3 +1,4 @@
+import { isSelfCrossing } from '../geometry/fileGeometry';
 import { defineCheck } from './defineCheck';
 
 /** Largest mean width 2A/L (mm) of a closed contour that is reported as enclosing no area. A sliver
@@ -16,7 +17,7 @@ export default defineCheck({
   run(ctx) {
     // Lobes of a self-crossing contour cancel in the signed area; self-crossing reports those.
     ctx.contours.forEach(({ contour, metrics, geometry }) => {
-      if (!metrics.closed || geometry.roundness.selfCrossing || metrics.areaMm2.value === null || metrics.perimeterMm.value === null) return;
+      if (!metrics.closed || isSelfCrossing(geometry) || metrics.areaMm2.value === null || metrics.perimeterMm.value === null) return;
       const area = metrics.areaMm2.value, perimeter = metrics.perimeterMm.value;
       if (perimeter <= 0 || (2 * area) / perimeter > DEGENERATE_MEAN_WIDTH_MM) return;
       ctx.report({

@@ -6,6 +6,7 @@ import { AnalysisCancelled, analyze } from '../index';
 import type { Contour, MeasuredContour } from '../types';
 import { getFileGeometry } from './fileGeometry';
 import { measureContour } from './measure';
+import { measureContourShapes } from './shapes';
 
 const analyzeSvg = (body: string) => analyze(wrapSvg(body), 'svg');
 const never = () => {};
@@ -96,6 +97,11 @@ describe('the file geometry in the analysis result', () => {
 
 const measured = (contours: readonly Contour[]): MeasuredContour[] => contours.map((contour) => ({ contour, metrics: measureContour(contour, 'up') }));
 const geometryOf = (c: Contour) => getFileGeometry(measured([c]), never).contours[0]!;
+/** The contour's roundness and hull, measured as the analysis does after its findings. */
+const shapeOf = (c: Contour) => {
+  const [m] = measured([c]);
+  return measureContourShapes([{ ...m!, geometry: geometryOf(c) }], never)[0]!;
+};
 const counts = (c: Contour) => {
   const g = geometryOf(c);
   // Overlap runs may split where the loop starts, so their total length is compared, not their number.
@@ -138,7 +144,7 @@ describe('roundness scales with the contour and ignores its placement (fast-chec
   it('R, ρ and √D/π scale by k, convexity stays, under rotation of the start, reversal, translation and scaling by 3 (seed 707)', () => {
     fc.assert(fc.property(star, fc.nat(), (pts, k) => {
       const c = contourFromSegments(polygonSegments(pts, true), true);
-      const a = geometryOf(c);
+      const a = shapeOf(c);
       const tol = (g: typeof a) => g.roundness.inradius.value!.errorBoundMm + 1e-9;
       for (const [variant, scale] of [
         [rotateContourStart(c, k % c.segments.length), 1],
@@ -146,7 +152,7 @@ describe('roundness scales with the contour and ignores its placement (fast-chec
         [mapContour(c, [1, 0, 0, 1, 500, -300]), 1],
         [mapContour(c, [3, 0, 0, 3, 0, 0]), 3],
       ] as const) {
-        const b = geometryOf(variant);
+        const b = shapeOf(variant);
         expect(b.roundness.circumradius.value!.valueMm).toBeCloseTo(scale * a.roundness.circumradius.value!.valueMm, 9);
         expect(Math.abs(b.roundness.inradius.value!.valueMm - scale * a.roundness.inradius.value!.valueMm)).toBeLessThanOrEqual(tol(b) + scale * tol(a));
         expect(b.roundness.bonnesenBoundMm.value!).toBeCloseTo(scale * a.roundness.bonnesenBoundMm.value!, 6);

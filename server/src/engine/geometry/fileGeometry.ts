@@ -1,29 +1,33 @@
 /**
  * The file-wide geometry of one analysis, computed once and shared by the result and the checks:
- * intersections and double cuts (intersect.ts), nesting and parts (nesting.ts), then per contour
- * roundness and hull (roundness.ts), and the file summary.
+ * intersections and double cuts (intersect.ts), nesting and parts (nesting.ts), and the file summary.
+ * The contours' roundness and hull come later, apart (shapes.ts): no check needs them.
  */
-import type { ContourGeometry, ContourOverlap, FileSummary, MeasuredContour, SelfIntersection } from '../types';
+import type { ContourOverlap, FileSummary, MeasuredContour, OutlineGeometry, SelfIntersection } from '../types';
 import { findIntersections, type IntersectionResult } from './intersect';
 import { getFileSummary, getNesting, type Nesting } from './nesting';
-import { getRoundness } from './roundness';
 
 /** The lists of every contour that has no self-intersection, or no overlap (frozen: shared). */
 const NO_SELF_INTERSECTIONS: readonly SelfIntersection[] = Object.freeze([]);
 const NO_OVERLAPS: readonly ContourOverlap[] = Object.freeze([]);
+
+/** True when the contour crosses itself (a touch is not a crossing). */
+export function isSelfCrossing(geometry: OutlineGeometry): boolean {
+  return geometry.selfIntersections.some((x) => x.kind === 'crossing');
+}
 
 export interface FileGeometry {
   /** Places in it are positions in the analysed contour list (equal to contour indices). */
   readonly intersections: IntersectionResult;
   readonly nesting: Nesting;
   /** Per contour, by position. */
-  readonly contours: readonly ContourGeometry[];
+  readonly contours: readonly OutlineGeometry[];
   readonly summary: FileSummary;
 }
 
 /**
- * Computes the file's geometry. `checkCancelled` is called between stages and between contours and
- * throws to stop; the intersection search also polls `isCancelled` inside its loop.
+ * Computes the file's geometry. `checkCancelled` is called between stages and throws to stop; the
+ * intersection search also polls `isCancelled` inside its loop.
  */
 export function getFileGeometry(
   contours: readonly MeasuredContour[],
@@ -49,21 +53,14 @@ export function getFileGeometry(
     if (o.a.contour !== o.b.contour) (overlaps[o.a.contour] ??= []).push({ otherContour: b, lengthMm: o.length, span: o.a.span, otherSpan: o.b.span });
   }
 
-  const perContour: ContourGeometry[] = new Array(contours.length);
+  const perContour: OutlineGeometry[] = new Array(contours.length);
   for (let pos = 0; pos < contours.length; pos++) {
-    const { contour, metrics } = contours[pos]!;
-    const selfIntersections = self[pos] ?? NO_SELF_INTERSECTIONS;
-    const selfCrossing = selfIntersections.some((x) => x.kind === 'crossing');
-    const { roundness, hull } = getRoundness(contour, metrics, selfCrossing);
     perContour[pos] = {
-      selfIntersections,
+      selfIntersections: self[pos] ?? NO_SELF_INTERSECTIONS,
       overlaps: overlaps[pos] ?? NO_OVERLAPS,
       parent: nesting.parent[pos] ?? null,
       depth: nesting.depth[pos] ?? 0,
-      roundness,
-      hull,
     };
-    checkCancelled();
   }
   return { intersections, nesting, contours: perContour, summary: getFileSummary(contours, nesting) };
 }

@@ -28,7 +28,7 @@
  * stated error bound.
  */
 import Flatbush from 'flatbush';
-import type { Contour, ContourHull, ContourMetrics, ContourRoundness, Measured, MeasuredCircle } from '../types';
+import type { Contour, ContourHull, ContourMetrics, ContourRoundness, ContourShape, Measured, MeasuredCircle } from '../types';
 import { getContourCircle } from './circleContour';
 import { getConvexContourHull } from './convexContour';
 import { findSelfIntersections } from './intersect';
@@ -897,12 +897,6 @@ export function getWindingSquaredArea(points: readonly Pt[], extraHeights: reado
   return total;
 }
 
-/** Roundness figures and the convex hull of one contour. */
-export interface RoundnessFigures {
-  readonly roundness: ContourRoundness;
-  readonly hull: ContourHull;
-}
-
 const toCircle = (valueMm: number, centreXMm: number, centreYMm: number, errorBoundMm: number): MeasuredCircle =>
   ({ value: { valueMm, centreXMm, centreYMm, errorBoundMm } });
 
@@ -932,7 +926,7 @@ function toContourHull(h: HullMeasures, metrics: ContourMetrics, selfCrossing: b
  * All roundness figures of one contour. `selfCrossing` comes from the file's intersections
  * (intersect.ts), computed once per analysis.
  */
-export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCrossing: boolean): RoundnessFigures {
+export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCrossing: boolean): ContourShape {
   const [a, b, c, d] = metrics.bboxMm;
   const size = len(c - a, d - b);
   const flatteningMm = ROUNDNESS_FLATTENING_RELATIVE * size;

@@ -356,4 +356,30 @@ describe('the language server on hostile input', () => {
     expect(latencies.length).toBeGreaterThan(4);
     expect(Math.max(...latencies)).toBeLessThan(total / 2);
   }, 60000);
+
+  it('publishes a huge file’s problems, and answers a hover sent with it once the hull is measured (worker replies joined)', async () => {
+    // One open path of 300 000 line segments on a circle of radius 100 mm, the last ~1.2° missing.
+    const n = 300_000, drawn = n - 1000;
+    const d = ['M100 0'];
+    for (let k = 1; k <= drawn; k++) d.push(`L${(100 * Math.cos((2 * Math.PI * k) / n)).toFixed(4)} ${(100 * Math.sin((2 * Math.PI * k) / n)).toFixed(4)}`);
+    const text = `<svg xmlns="http://www.w3.org/2000/svg" width="200mm" height="200mm" viewBox="-100 -100 200 200"><path d="${d.join(' ')}"/></svg>`;
+    const hugeUri = 'file:///work/huge-open.svg';
+    const events: string[] = [];
+    const published = open(hugeUri, text).then((p) => {
+      events.push('diagnostics');
+      return p;
+    });
+    // Asked at once, the hover waits for the same run as the diagnostics, up to the hull's figures.
+    const hover = s.connection.sendRequest(HoverRequest.type, { textDocument: { uri: hugeUri }, position: positionOf(text, 'M100 0') }).then((h) => {
+      events.push('hover');
+      return h;
+    });
+    const [p, h] = await Promise.all([published, hover]);
+    expect(events).toEqual(['diagnostics', 'hover']);
+    expect(byCode(p.diagnostics, 'open-contour')).toHaveLength(1);
+    // The hull of an arc of 358.8° on r = 100 is nearly the disc: perimeter just under 2π·100 ≈ 628.3 mm.
+    const value = (h?.contents as { value: string }).value;
+    expect(value).toContain('Convex hull');
+    expect(value).toMatch(/perimeter 628\.\d+ mm/);
+  }, 60000);
 });

@@ -6,10 +6,10 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { afterEach, describe, expect, it } from 'vitest';
-import { analyze, DEFAULT_OPTIONS, getFormatForPath, toFigures } from '../engine/index';
-import type { FileFormat } from '../engine/index';
+import { analyze, analyzeOutlines, DEFAULT_OPTIONS, getFormatForPath, toFigures, withShapes } from '../engine/index';
+import type { FileFormat, OutlineFigures } from '../engine/index';
 import { InlineAnalyser, runJob, WorkerAnalyser } from './analyser';
-import type { JobOptions } from './analyser';
+import type { JobOptions, JobReply } from './analyser';
 
 const root = fileURLToPath(new URL('../../../', import.meta.url));
 const workerPath = `${root}dist/analysisWorker.js`;
@@ -50,8 +50,26 @@ describe('WorkerAnalyser', () => {
     for (const file of files) {
       const text = readFileSync(dir + file, 'utf8');
       const format = getFormatForPath(file)!;
-      expect(await analyser.analyse(text, format, jobOptions, never), file).toEqual(toFigures(analyze(text, format, jobOptions)));
+      const outlines: OutlineFigures[] = [];
+      expect(await analyser.analyse(text, format, jobOptions, never, (f) => outlines.push(f)), file).toEqual(toFigures(analyze(text, format, jobOptions)));
+      expect(outlines, file).toEqual([toFigures(analyzeOutlines(text, format, jobOptions))]);
     }
+  });
+
+  it('hands over the findings before it has measured the roundness of a big contour', async () => {
+    const analyser = createWorkerAnalyser();
+    const events: string[] = [];
+    const result = await analyser
+      .analyse(bigSvg(100_000), 'svg', jobOptions, never, (f) => events.push(`outlines: ${f.contours.length} contour, ${f.findings.length} findings`))
+      .then((r) => {
+        events.push('complete');
+        return r;
+      });
+    expect(events).toEqual(['outlines: 1 contour, 0 findings', 'complete']);
+    // A regular 100 000-gon inscribed in r = 100 has R = 100 (handbook: circumradius of a regular
+    // polygon); its vertices, rounded to 5 decimals, move by at most 0.71e-5.
+    const r = result!.contours[0]!.geometry.roundness.circumradius.value!;
+    expect(Math.abs(r.valueMm - 100)).toBeLessThanOrEqual(0.71e-5 + r.errorBoundMm);
   });
 
   it('stops a run whose document changed and stays usable', async () => {
@@ -109,22 +127,52 @@ describe('WorkerAnalyser', () => {
 describe('InlineAnalyser', () => {
   it('returns the engine result, or undefined once outdated', async () => {
     const analyser = new InlineAnalyser();
-    expect(await analyser.analyse(SMALL, 'svg', jobOptions, never)).toEqual(toFigures(analyze(SMALL, 'svg', jobOptions)));
+    const outlines: OutlineFigures[] = [];
+    expect(await analyser.analyse(SMALL, 'svg', jobOptions, never, (f) => outlines.push(f))).toEqual(toFigures(analyze(SMALL, 'svg', jobOptions)));
+    expect(outlines).toEqual([toFigures(analyzeOutlines(SMALL, 'svg', jobOptions))]);
     expect(await analyser.analyse(SMALL, 'svg', jobOptions, () => true)).toBeUndefined();
+  });
+
+  it('stops before the shapes when the document changes after the findings', async () => {
+    let outdated = false;
+    const outlines: OutlineFigures[] = [];
+    const result = await new InlineAnalyser().analyse(SMALL, 'svg', jobOptions, () => outdated, (f) => {
+      outlines.push(f);
+      outdated = true;
+    });
+    expect(result).toBeUndefined();
+    expect(outlines).toHaveLength(1);
   });
 });
 
 describe('runJob (the worker side)', () => {
-  it('reports cancellation when the shared flag is raised', () => {
+  const replies = (text: string, format: FileFormat, cancel: Int32Array, onReply: (r: JobReply) => void = () => {}) => {
+    const out: JobReply[] = [];
+    runJob({ id: 7, text, format, options: jobOptions, cancel }, (r) => {
+      out.push(r);
+      onReply(r);
+    });
+    return out;
+  };
+
+  it("posts the findings' figures, then the shapes that complete them to the engine's whole result", () => {
+    const [outlines, done, ...more] = replies(SMALL, 'svg', new Int32Array(new SharedArrayBuffer(4)));
+    expect(more).toEqual([]);
+    if (outlines?.kind !== 'outlines' || done?.kind !== 'done') throw new Error(`unexpected replies ${outlines?.kind} ${done?.kind}`);
+    expect(withShapes(outlines.result, done.shapes)).toEqual(toFigures(analyze(SMALL, 'svg', jobOptions)));
+  });
+
+  it('reports cancellation when the shared flag is raised, before or after the findings', () => {
     const cancel = new Int32Array(new SharedArrayBuffer(4));
     Atomics.store(cancel, 0, 1);
-    expect(runJob({ id: 7, text: SMALL, format: 'svg', options: jobOptions, cancel })).toEqual({ id: 7, kind: 'cancelled' });
+    expect(replies(SMALL, 'svg', cancel)).toEqual([{ id: 7, kind: 'cancelled' }]);
+    const later = new Int32Array(new SharedArrayBuffer(4));
+    expect(replies(SMALL, 'svg', later, () => Atomics.store(later, 0, 1)).map((r) => r.kind)).toEqual(['outlines', 'cancelled']);
   });
 
   it('reports an engine failure as a message instead of throwing', () => {
     const cancel = new Int32Array(new SharedArrayBuffer(4));
     // No reader exists for this format, so the engine throws: the worker must answer, not die.
-    const reply = runJob({ id: 8, text: SMALL, format: 'pdf' as FileFormat, options: jobOptions, cancel });
-    expect(reply).toMatchObject({ id: 8, kind: 'failed' });
+    expect(replies(SMALL, 'pdf' as FileFormat, cancel)).toMatchObject([{ id: 7, kind: 'failed' }]);
   });
 });

@@ -10,8 +10,8 @@
  * A worker that dies (out of memory on a hostile file, a crash) fails only its own job and is replaced.
  */
 import { Worker } from 'node:worker_threads';
-import { AnalysisCancelled, analyze, toFigures } from '../engine/index';
-import type { AnalysisFigures, AnalysisOptions, FileFormat } from '../engine/index';
+import { AnalysisCancelled, analyzeOutlines, measureShapes, toFigures, withShapes } from '../engine/index';
+import type { AnalysisFigures, AnalysisOptions, ContourShape, FileFormat, OutlineFigures } from '../engine/index';
 
 /** Options for one analysis; `isCancelled` is the analyser's to supply. */
 export type JobOptions = Omit<AnalysisOptions, 'isCancelled'>;
@@ -19,17 +19,35 @@ export type JobOptions = Omit<AnalysisOptions, 'isCancelled'>;
 export interface Analyser {
   /**
    * The analysis without its segment geometry (see engine/figures.ts), or undefined when
-   * `isOutdated()` turned true first. Rejects when the analysis failed.
+   * `isOutdated()` turned true first. Rejects when the analysis failed. `onOutlines` gets the figures
+   * up to the findings as soon as they are known, before the contours' roundness and hull are measured
+   * (so the problems can be shown first).
    */
-  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined>;
+  analyse(
+    text: string,
+    format: FileFormat,
+    options: JobOptions,
+    isOutdated: () => boolean,
+    onOutlines?: (figures: OutlineFigures) => void,
+  ): Promise<AnalysisFigures | undefined>;
   dispose(): Promise<void>;
 }
 
-/** Runs the engine on the calling thread. */
+/** Runs the engine on the calling thread, with a turn of the event loop between the findings and the shapes. */
 export class InlineAnalyser implements Analyser {
-  async analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined> {
+  async analyse(
+    text: string,
+    format: FileFormat,
+    options: JobOptions,
+    isOutdated: () => boolean,
+    onOutlines?: (figures: OutlineFigures) => void,
+  ): Promise<AnalysisFigures | undefined> {
     try {
-      return toFigures(analyze(text, format, { ...options, isCancelled: isOutdated }));
+      const outlines = analyzeOutlines(text, format, { ...options, isCancelled: isOutdated });
+      const figures = toFigures(outlines);
+      onOutlines?.(figures);
+      await new Promise((resolve) => setImmediate(resolve));
+      return withShapes(figures, measureShapes(outlines, isOutdated));
     } catch (error) {
       if (error instanceof AnalysisCancelled) return undefined;
       throw error;
@@ -48,9 +66,10 @@ export interface JobRequest {
   readonly cancel: Int32Array;
 }
 
-/** Worker → main thread. */
+/** Worker → main thread: `outlines` first, then one of the others. */
 export type JobReply =
-  | { readonly id: number; readonly kind: 'done'; readonly result: AnalysisFigures }
+  | { readonly id: number; readonly kind: 'outlines'; readonly result: OutlineFigures }
+  | { readonly id: number; readonly kind: 'done'; readonly shapes: readonly ContourShape[] }
   | { readonly id: number; readonly kind: 'cancelled' }
   | { readonly id: number; readonly kind: 'failed'; readonly message: string };
 
@@ -60,6 +79,9 @@ export const CANCEL_POLL_MS = 25;
 interface Job {
   readonly request: JobRequest;
   readonly isOutdated: () => boolean;
+  readonly onOutlines: ((figures: OutlineFigures) => void) | undefined;
+  /** The figures up to the findings, once the worker sent them. */
+  outlines?: OutlineFigures;
   readonly resolve: (result: AnalysisFigures | undefined) => void;
   readonly reject: (error: Error) => void;
 }
@@ -91,11 +113,17 @@ export class WorkerAnalyser implements Analyser {
 
   constructor(private readonly options: WorkerAnalyserOptions) {}
 
-  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean): Promise<AnalysisFigures | undefined> {
+  analyse(
+    text: string,
+    format: FileFormat,
+    options: JobOptions,
+    isOutdated: () => boolean,
+    onOutlines?: (figures: OutlineFigures) => void,
+  ): Promise<AnalysisFigures | undefined> {
     if (this.disposed) return Promise.reject(new Error('The analyser is disposed'));
     return new Promise((resolve, reject) => {
       const cancel = new Int32Array(new SharedArrayBuffer(4));
-      this.waiting.push({ request: { id: this.nextId++, text, format, options, cancel }, isOutdated, resolve, reject });
+      this.waiting.push({ request: { id: this.nextId++, text, format, options, cancel }, isOutdated, onOutlines, resolve, reject });
       this.dispatch();
     });
   }
@@ -142,9 +170,16 @@ export class WorkerAnalyser implements Analyser {
     worker.on('message', (reply: JobReply) => {
       const job = slot.job;
       if (!job || job.request.id !== reply.id) return;
+      if (reply.kind === 'outlines') {
+        job.outlines = reply.result;
+        job.onOutlines?.(reply.result);
+        return;
+      }
       this.finish(slot);
-      if (reply.kind === 'done') job.resolve(reply.result);
-      else if (reply.kind === 'cancelled') job.resolve(undefined);
+      if (reply.kind === 'done') {
+        if (job.outlines) job.resolve(withShapes(job.outlines, reply.shapes));
+        else job.reject(new Error('The analysis worker sent the shapes before the findings'));
+      } else if (reply.kind === 'cancelled') job.resolve(undefined);
       else job.reject(new Error(reply.message));
       this.dispatch();
     });
@@ -183,13 +218,16 @@ export class WorkerAnalyser implements Analyser {
   }
 }
 
-/** The worker side: answers one request (the body of dist/analysisWorker.js). */
-export function runJob(request: JobRequest): JobReply {
+/** The worker side: answers one request with its outlines, then its shapes (the body of dist/analysisWorker.js). */
+export function runJob(request: JobRequest, post: (reply: JobReply) => void): void {
+  const { id } = request;
+  const isCancelled = () => Atomics.load(request.cancel, 0) === 1;
   try {
-    const result = analyze(request.text, request.format, { ...request.options, isCancelled: () => Atomics.load(request.cancel, 0) === 1 });
-    return { id: request.id, kind: 'done', result: toFigures(result) };
+    const outlines = analyzeOutlines(request.text, request.format, { ...request.options, isCancelled });
+    post({ id, kind: 'outlines', result: toFigures(outlines) });
+    post({ id, kind: 'done', shapes: measureShapes(outlines, isCancelled) });
   } catch (error) {
-    if (error instanceof AnalysisCancelled) return { id: request.id, kind: 'cancelled' };
-    return { id: request.id, kind: 'failed', message: error instanceof Error ? `${error.message}\n${error.stack ?? ''}` : String(error) };
+    if (error instanceof AnalysisCancelled) post({ id, kind: 'cancelled' });
+    else post({ id, kind: 'failed', message: error instanceof Error ? `${error.message}\n${error.stack ?? ''}` : String(error) });
   }
 }

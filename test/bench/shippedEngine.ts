@@ -22,4 +22,4 @@ buildSync({
 const engine = (await import(pathToFileURL(outfile).href)) as Engine;
 rmSync(dir, { recursive: true });
 
-export const { analyze, DEFAULT_OPTIONS, getFormatForPath, readDxf } = engine;
+export const { analyze, analyzeOutlines, DEFAULT_OPTIONS, getFormatForPath, readDxf } = engine;

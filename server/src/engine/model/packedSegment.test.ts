@@ -9,10 +9,10 @@ const span = { start: 3, end: 9 };
 /** The same four segments made by a sink. */
 function fourOf(sink: SegmentSink, v: readonly number[]): Segment[] {
   return [
-    sink.line(v[0]!, v[1]!, v[2]!, v[3]!, span),
-    sink.quad(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, span),
-    sink.cubic(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, v[6]!, v[7]!, span),
-    sink.arc(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, v[6]!, v[7]!, v[8]!, v[9]!, v[10]!, v[11]!, span),
+    sink.line(v[0]!, v[1]!, v[2]!, v[3]!, span.start, span.end),
+    sink.quad(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, span.start, span.end),
+    sink.cubic(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, v[6]!, v[7]!, span.start, span.end),
+    sink.arc(v[0]!, v[1]!, v[2]!, v[3]!, v[4]!, v[5]!, v[6]!, v[7]!, v[8]!, v[9]!, v[10]!, v[11]!, span.start, span.end),
   ];
 }
 

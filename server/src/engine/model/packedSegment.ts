@@ -109,52 +109,55 @@ export class PackedSegmentWriter implements SegmentSink {
     return o;
   }
 
-  line(x0: number, y0: number, x1: number, y1: number, span: SourceSpan): Segment {
+  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): Segment {
     const o = this.reserve(4), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1;
-    return new PackedLine(c, o, span.start, span.end);
+    return new PackedLine(c, o, spanStart, spanEnd);
   }
 
-  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, span: SourceSpan): Segment {
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): Segment {
     const o = this.reserve(6), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2;
-    return new PackedQuad(c, o, span.start, span.end);
+    return new PackedQuad(c, o, spanStart, spanEnd);
   }
 
-  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, span: SourceSpan): Segment {
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): Segment {
     const o = this.reserve(8), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2; c[o + 6] = x3; c[o + 7] = y3;
-    return new PackedCubic(c, o, span.start, span.end);
+    return new PackedCubic(c, o, spanStart, spanEnd);
   }
 
   arc(
     x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
-    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, span: SourceSpan,
+    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,
   ): Segment {
     const o = this.reserve(12), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = cx; c[o + 5] = cy;
     c[o + 6] = ux; c[o + 7] = uy; c[o + 8] = vx; c[o + 9] = vy; c[o + 10] = theta0; c[o + 11] = sweep;
-    return new PackedArc(c, o, span.start, span.end);
+    return new PackedArc(c, o, spanStart, spanEnd);
   }
 }
 
-/** Something that makes segments from their fields: packed (PackedSegmentWriter) or plain (`plainSegments`). */
+/**
+ * Something that makes segments from their fields: packed (PackedSegmentWriter) or plain
+ * (`plainSegments`). The span comes as its two offsets, so a packed segment needs no span object.
+ */
 export interface SegmentSink {
-  line(x0: number, y0: number, x1: number, y1: number, span: SourceSpan): Segment;
-  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, span: SourceSpan): Segment;
-  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, span: SourceSpan): Segment;
+  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): Segment;
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): Segment;
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): Segment;
   arc(
     x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
-    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, span: SourceSpan,
+    ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,
   ): Segment;
 }
 
 /** Plain segment objects, for the few segments made outside a drawing's bulk (fixes, small shapes). */
 export const plainSegments: SegmentSink = {
-  line: (x0, y0, x1, y1, span) => ({ kind: 'line', x0, y0, x1, y1, span }),
-  quad: (x0, y0, x1, y1, x2, y2, span) => ({ kind: 'quad', x0, y0, x1, y1, x2, y2, span }),
-  cubic: (x0, y0, x1, y1, x2, y2, x3, y3, span) => ({ kind: 'cubic', x0, y0, x1, y1, x2, y2, x3, y3, span }),
-  arc: (x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span) => ({ kind: 'arc', x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span }),
+  line: (x0, y0, x1, y1, start, end) => ({ kind: 'line', x0, y0, x1, y1, span: { start, end } }),
+  quad: (x0, y0, x1, y1, x2, y2, start, end) => ({ kind: 'quad', x0, y0, x1, y1, x2, y2, span: { start, end } }),
+  cubic: (x0, y0, x1, y1, x2, y2, x3, y3, start, end) => ({ kind: 'cubic', x0, y0, x1, y1, x2, y2, x3, y3, span: { start, end } }),
+  arc: (x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, start, end) => ({ kind: 'arc', x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span: { start, end } }),
 };
 
 /** Largest chunk of a PackedSegmentWriter: 512 KB. */

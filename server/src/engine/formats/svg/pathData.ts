@@ -128,7 +128,9 @@ interface SubpathBuilder {
   spanStart: number; // local offset
   spanEnd: number;   // local offset
   startSpan: SourceSpan;
-  endSpan: SourceSpan;
+  /** The endSpan's local offsets: a span object for each command would be garbage but for the last. */
+  endStart: number;
+  endEnd: number;
 }
 
 class PathDataParser {
@@ -287,7 +289,8 @@ class PathDataParser {
       spanStart: letter,
       spanEnd: pairEnd,
       startSpan: this.span(letter, pairEnd),
-      endSpan: this.span(letter, pairEnd),
+      endStart: letter,
+      endEnd: pairEnd,
     };
     this.cx = this.sx = x;
     this.cy = this.sy = y;
@@ -306,7 +309,8 @@ class PathDataParser {
     if (sub) {
       sub.closed = true;
       sub.spanEnd = this.i;
-      sub.endSpan = this.span(letter, this.i);
+      sub.endStart = letter;
+      sub.endEnd = this.i;
     }
     this.cx = this.sx;
     this.cy = this.sy;
@@ -428,7 +432,6 @@ class PathDataParser {
     const p = this.lastPoints;
     const x0 = this.cx, y0 = this.cy;
     const ox = relative ? x0 : 0, oy = relative ? y0 : 0;
-    const span = this.span(start, end);
     let kind: number;
     let x: number, y: number;
     switch (cmd) {
@@ -486,18 +489,22 @@ class PathDataParser {
     }
     p[4] = x; p[5] = y;
     this.lastKind = kind;
-    const seg = this.matrix === null ? this.buildSegment(kind, x0, y0, span, this.writer) : this.buildMappedSegment(kind, x0, y0, span, this.matrix);
+    const spanStart = this.base + start, spanEnd = this.base + end;
+    const seg = this.matrix === null
+      ? this.buildSegment(kind, x0, y0, spanStart, spanEnd, this.writer)
+      : this.buildMappedSegment(kind, x0, y0, spanStart, spanEnd, this.matrix);
     let sub = this.sub;
     if (sub === null) {
       // First drawing command after a Z: a new subpath from the previous subpath's start.
       sub = this.sub = {
         segments: [], closed: false, startX: this.sx, startY: this.sy,
-        spanStart: start, spanEnd: end, startSpan: span, endSpan: span,
+        spanStart: start, spanEnd: end, startSpan: this.span(start, end), endStart: start, endEnd: end,
       };
     }
     sub.segments.push(seg);
     sub.spanEnd = end;
-    sub.endSpan = span;
+    sub.endStart = start;
+    sub.endEnd = end;
     this.cx = x;
     this.cy = y;
     // Remember this group for the close fix; swap the buffers so the next group cannot overwrite it.
@@ -513,37 +520,37 @@ class PathDataParser {
   }
 
   /** The segment of kind `kind` from (x0, y0) through lastPoints (and svgArcCentre for arcs), as read, made by `sink`. */
-  private buildSegment(kind: number, x0: number, y0: number, span: SourceSpan, sink: SegmentSink): Segment {
+  private buildSegment(kind: number, x0: number, y0: number, spanStart: number, spanEnd: number, sink: SegmentSink): Segment {
     const p = this.lastPoints;
     switch (kind) {
       case QUAD:
-        return sink.quad(x0, y0, p[0]!, p[1]!, p[4]!, p[5]!, span);
+        return sink.quad(x0, y0, p[0]!, p[1]!, p[4]!, p[5]!, spanStart, spanEnd);
       case CUBIC:
-        return sink.cubic(x0, y0, p[0]!, p[1]!, p[2]!, p[3]!, p[4]!, p[5]!, span);
+        return sink.cubic(x0, y0, p[0]!, p[1]!, p[2]!, p[3]!, p[4]!, p[5]!, spanStart, spanEnd);
       case ARC: {
         const c = svgArcCentre;
-        return sink.arc(x0, y0, p[4]!, p[5]!, c[0]!, c[1]!, c[2]!, c[3]!, c[4]!, c[5]!, c[6]!, c[7]!, span);
+        return sink.arc(x0, y0, p[4]!, p[5]!, c[0]!, c[1]!, c[2]!, c[3]!, c[4]!, c[5]!, c[6]!, c[7]!, spanStart, spanEnd);
       }
       default:
-        return sink.line(x0, y0, p[4]!, p[5]!, span);
+        return sink.line(x0, y0, p[4]!, p[5]!, spanStart, spanEnd);
     }
   }
 
   /** buildSegment's segment mapped by m, made once by the writer (the same arithmetic as transformSegment). */
-  private buildMappedSegment(kind: number, x0: number, y0: number, span: SourceSpan, m: Matrix): Segment {
+  private buildMappedSegment(kind: number, x0: number, y0: number, spanStart: number, spanEnd: number, m: Matrix): Segment {
     const [a, b, c, d, e, f] = m;
     const p = this.lastPoints, w = this.writer;
     const mx0 = a * x0 + c * y0 + e, my0 = b * x0 + d * y0 + f;
     const mx = a * p[4]! + c * p[5]! + e, my = b * p[4]! + d * p[5]! + f;
     switch (kind) {
       case QUAD:
-        return w.quad(mx0, my0, a * p[0]! + c * p[1]! + e, b * p[0]! + d * p[1]! + f, mx, my, span);
+        return w.quad(mx0, my0, a * p[0]! + c * p[1]! + e, b * p[0]! + d * p[1]! + f, mx, my, spanStart, spanEnd);
       case CUBIC:
         return w.cubic(
           mx0, my0,
           a * p[0]! + c * p[1]! + e, b * p[0]! + d * p[1]! + f,
           a * p[2]! + c * p[3]! + e, b * p[2]! + d * p[3]! + f,
-          mx, my, span,
+          mx, my, spanStart, spanEnd,
         );
       case ARC: {
         const k = svgArcCentre;
@@ -552,11 +559,11 @@ class PathDataParser {
           a * k[0]! + c * k[1]! + e, b * k[0]! + d * k[1]! + f,
           a * k[2]! + c * k[3]!, b * k[2]! + d * k[3]!,
           a * k[4]! + c * k[5]!, b * k[4]! + d * k[5]!,
-          k[6]!, k[7]!, span,
+          k[6]!, k[7]!, spanStart, spanEnd,
         );
       }
       default:
-        return w.line(mx0, my0, mx, my, span);
+        return w.line(mx0, my0, mx, my, spanStart, spanEnd);
     }
   }
 
@@ -572,7 +579,7 @@ class PathDataParser {
       startY: sub.startY,
       span: this.span(sub.spanStart, sub.spanEnd),
       startSpan: sub.startSpan,
-      endSpan: sub.endSpan,
+      endSpan: this.span(sub.endStart, sub.endEnd),
     };
     if (!sub.closed && sub.segments.length > 0) {
       const arity = getArity(this.lastCommand);
@@ -589,7 +596,7 @@ class PathDataParser {
       };
       const last = this.lastKind === ARC
         ? arcFromSvgEndpoints(this.lastX0, this.lastY0, group.args[0]!, group.args[1]!, group.args[2]!, group.args[3] === 1, group.args[4] === 1, this.lastPoints[4]!, this.lastPoints[5]!, this.span(this.lastStart, this.lastEnd))!
-        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.span(this.lastStart, this.lastEnd), plainSegments);
+        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.base + this.lastStart, this.base + this.lastEnd, plainSegments);
       result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, last, group, next);
     }
     this.subpaths.push(result);

@@ -45,12 +45,14 @@ for (const n of sizes) {
   // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
   // that every one is timed in its steady state (as in geometry.bench.ts); one call each at 1e6.
   const [warmMs, warmCalls] = n >= 1e6 ? [0, 1] : n >= 1e5 ? [3000, 20] : [1500, 100];
+  // Each contender returns a count, not its result: a kept result (hundreds of MB at 1e6) would be
+  // live through the next call and the next contender's, and slow their collections.
   const fl = timeSteady(runs, () => tokenizeFloor(text), warmMs, warmCalls);
-  const rd = timeSteady(runs, () => read(text), warmMs, warmCalls);
-  const us = timeSteady(runs, () => analyzeOutlines(text, 'dxf'), warmMs, warmCalls);
-  const wh = timeSteady(runs, () => analyze(text, 'dxf'), warmMs, warmCalls);
+  const rd = timeSteady(runs, () => read(text).contours.length, warmMs, warmCalls);
+  const us = timeSteady(runs, () => analyzeOutlines(text, 'dxf').findings.length, warmMs, warmCalls);
+  const wh = timeSteady(runs, () => analyze(text, 'dxf').findings.length, warmMs, warmCalls);
   // dxf-parser takes ~3 GB at 1e6: timed there once, with no warm-up call.
-  const parse = () => new DxfParser().parseSync(text);
+  const parse = () => new DxfParser().parseSync(text)?.entities.length;
   const dp = timeSteady(runs, parse, warmMs, n >= 1e6 ? 0 : warmCalls);
   console.log(
     `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, read ${fmt(rd.ms)}, ours ${fmt(us.ms)}, whole ${fmt(wh.ms)}, dxf-parser ${fmt(dp.ms)}` +

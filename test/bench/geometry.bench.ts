@@ -11,8 +11,8 @@
  *   publishing and the CLI reports (both of the engine bundled as they run it: shippedEngine.ts);
  * - paper: path import + length + area + self-intersections (`getIntersections` + `isCrossing`).
  * Each contender is warmed up alike just before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20
- * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 15 runs at 1e4, 5 at 1e5, 1
- * at 1e6 (paper 3 at 1e5). Printed: median times, ours/floor, whole/floor, paper/ours and
+ * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 15 runs at 1e4, 9 at 1e5, 3
+ * at 1e6 (paper 3 at 1e5, 1 at 1e6). Printed: median times, ours/floor, whole/floor, paper/ours and
  * paper/whole, crossing counts (the contour has none), and the log-log slopes of ours and whole from 1e4
  * to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
  * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
@@ -84,7 +84,9 @@ for (const n of sizes) {
   for (const kind of kinds) {
     const d = makePathData(n, kind);
     const text = wrap(d);
-    const runs = n >= 1e6 ? 1 : n >= 1e5 ? 5 : 15;
+    // Medians of 15 calls at 1e4, 9 at 1e5 and 3 at 1e6 (paper 3 at 1e5 and 1 at 1e6, 1–45 s a call):
+    // at 1e5 a median of 5 still swung by half from run to run, and one call at 1e6 sets the slope.
+    const runs = n >= 1e6 ? 3 : n >= 1e5 ? 9 : 15;
     // Each contender is warmed up for the same wall time (or call count) just before it is timed, so
     // that every one is timed in its steady state: ten calls at 1e4 left ours at ~14 ms where it
     // settles at ~9 ms. At 1e6 one call each (paper none: 10–85 s a call, warm from the smaller sizes).

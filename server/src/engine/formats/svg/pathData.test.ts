@@ -174,6 +174,11 @@ describe('parsePathData reports malformed data and keeps what came before (REFER
     { d: 'M1 2 -', segments: [0], at: 5, text: '-', detail: /not a number/ },
     { d: 'M1e400 0', segments: [], at: 1, text: '1e400', detail: /too large/ },
     { d: 'M0 0 L1 2 M3', segments: [1], at: 12, text: '', detail: /expected a number in 'M'/ },
+    // Non-ASCII characters are no path data characters (§5.1): the error names the whole character,
+    // a surrogate pair included, and Latin-1 ones (é = U+00E9, NBSP = U+00A0) are no digits nor wsp.
+    { d: 'M0 0 L5 5 é', segments: [1], at: 10, text: 'é', detail: /found 'é'/ },
+    { d: 'M0 0 L5\u00a05', segments: [0], at: 7, text: '\u00a0', detail: /expected a number/ },
+    { d: 'M0 0 L5 5 \u{1F4D0} 1', segments: [1], at: 10, text: '\u{1F4D0}', detail: /found '\u{1F4D0}'/u },
     // Path data must start with a moveto (§5.1); `Z` alone is invalid.
     { d: 'Z', segments: [], at: 0, text: 'Z', detail: /must start with a moveto/ },
     { d: '  L1 2', segments: [], at: 2, text: 'L', detail: /must start with a moveto/ },

@@ -16,6 +16,9 @@ import type { AnalysisFigures, AnalysisOptions, ContourShape, FileFormat, Outlin
 /** Options for one analysis; `isCancelled` is the analyser's to supply. */
 export type JobOptions = Omit<AnalysisOptions, 'isCancelled'>;
 
+/** Gets an analysis's figures up to its findings, before its contours' roundness and hull are measured. */
+export type OnOutlines = (figures: OutlineFigures) => void;
+
 export interface Analyser {
   /**
    * The analysis without its segment geometry (see engine/figures.ts), or undefined when
@@ -23,25 +26,13 @@ export interface Analyser {
    * up to the findings as soon as they are known, before the contours' roundness and hull are measured
    * (so the problems can be shown first).
    */
-  analyse(
-    text: string,
-    format: FileFormat,
-    options: JobOptions,
-    isOutdated: () => boolean,
-    onOutlines?: (figures: OutlineFigures) => void,
-  ): Promise<AnalysisFigures | undefined>;
+  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean, onOutlines?: OnOutlines): Promise<AnalysisFigures | undefined>;
   dispose(): Promise<void>;
 }
 
 /** Runs the engine on the calling thread, with a turn of the event loop between the findings and the shapes. */
 export class InlineAnalyser implements Analyser {
-  async analyse(
-    text: string,
-    format: FileFormat,
-    options: JobOptions,
-    isOutdated: () => boolean,
-    onOutlines?: (figures: OutlineFigures) => void,
-  ): Promise<AnalysisFigures | undefined> {
+  async analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean, onOutlines?: OnOutlines): Promise<AnalysisFigures | undefined> {
     try {
       const outlines = analyzeOutlines(text, format, { ...options, isCancelled: isOutdated });
       const figures = toFigures(outlines);
@@ -79,7 +70,7 @@ export const CANCEL_POLL_MS = 25;
 interface Job {
   readonly request: JobRequest;
   readonly isOutdated: () => boolean;
-  readonly onOutlines: ((figures: OutlineFigures) => void) | undefined;
+  readonly onOutlines: OnOutlines | undefined;
   /** The figures up to the findings, once the worker sent them. */
   outlines?: OutlineFigures;
   readonly resolve: (result: AnalysisFigures | undefined) => void;
@@ -113,13 +104,7 @@ export class WorkerAnalyser implements Analyser {
 
   constructor(private readonly options: WorkerAnalyserOptions) {}
 
-  analyse(
-    text: string,
-    format: FileFormat,
-    options: JobOptions,
-    isOutdated: () => boolean,
-    onOutlines?: (figures: OutlineFigures) => void,
-  ): Promise<AnalysisFigures | undefined> {
+  analyse(text: string, format: FileFormat, options: JobOptions, isOutdated: () => boolean, onOutlines?: OnOutlines): Promise<AnalysisFigures | undefined> {
     if (this.disposed) return Promise.reject(new Error('The analyser is disposed'));
     return new Promise((resolve, reject) => {
       const cancel = new Int32Array(new SharedArrayBuffer(4));

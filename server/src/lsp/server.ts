@@ -91,7 +91,11 @@ export function startServer(connection: Connection, analyser: Analyser): void {
         outlineCache.set(uri, version, startGeneration, figures);
         settleOutlines(figures);
       });
-      if (result) cache.set(uri, version, startGeneration, result);
+      if (result) {
+        cache.set(uri, version, startGeneration, result);
+        // The whole result answers for its findings too: drop the first answer's copy of them.
+        if (outlineCache.get(uri, version, startGeneration)) outlineCache.delete(uri);
+      }
       return result;
     })();
     // A run that ends without its findings (cancelled, failed) settles them too; a promise settles

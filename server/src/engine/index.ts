@@ -90,7 +90,7 @@ function sortBySpan(findings: Finding[]): void {
   for (let k = 0; k < n; k++) findings[k] = byPosition[order[k]!]!;
 }
 
-/** Calls that throw `AnalysisCancelled` once `isCancelled()` returns true. */
+/** A check to call between stages: it throws `AnalysisCancelled` once `isCancelled()` returns true. */
 function cancelCheck(isCancelled: (() => boolean) | undefined): () => void {
   return () => {
     if (isCancelled?.()) throw new AnalysisCancelled();

@@ -6,6 +6,7 @@
  */
 import { createRequire } from 'node:module';
 import { arcFromSvgEndpoints } from '../../server/src/engine/geometry/arc';
+import { getTransientPolyline, type Polyline } from '../../server/src/engine/geometry/hull';
 import type { Arc, Contour, Cubic, Line, Quad, Segment, SourceSpan } from '../../server/src/engine/types';
 
 export const DUMMY_SPAN: SourceSpan = { start: 0, end: 0 };
@@ -263,4 +264,13 @@ export function toPlainSegment(s: Segment): Segment {
       ux: s.ux, uy: s.uy, vx: s.vx, vy: s.vy, theta0: s.theta0, sweep: s.sweep, span: s.span,
     };
   }
+}
+
+/** The contour's flattening (hull.ts `getTransientPolyline`) in arrays of its own, for tests that keep several. */
+export function getContourPolyline(contour: Contour, toleranceMm: number): Polyline {
+  const p = getTransientPolyline(contour, toleranceMm);
+  return {
+    ...p, xs: p.xs.slice(), ys: p.ys.slice(),
+    pieceFirst: p.pieceFirst.slice(), pieceSegment: p.pieceSegment.slice(), pieceOnCircle: p.pieceOnCircle.slice(),
+  };
 }

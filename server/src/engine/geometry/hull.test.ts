@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { orient2d } from 'robust-predicates';
-import { arc, contourFromSegments, cubic, line, quad } from '../../../../test/support/shapes';
+import { arc, contourFromSegments, cubic, getContourPolyline, line, quad } from '../../../../test/support/shapes';
 import type { Contour, Segment } from '../types';
-import { getArcCircle, getContourHullMeasures, getContourPolyline, getConvexHull, getPolylineHull, getTransientPolyline } from './hull';
+import { getArcCircle, getContourHullMeasures, getConvexHull, getPolylineHull, getTransientPolyline } from './hull';
 import { buildPieces, getPiecePoint, KIND_ARC, KIND_LINE, KIND_QUAD, STRIDE } from './intersectPieces';
 
 type Pt = readonly [number, number];
@@ -136,7 +136,7 @@ function expectReferencePolyline(contour: Contour, tol: number): void {
   expect(Array.from(poly.pieceOnCircle)).toEqual(ref.onCircle);
 }
 
-describe('getContourPolyline', () => {
+describe('getTransientPolyline (copied by the tests\' getContourPolyline)', () => {
   const coordinate = fc.oneof(fc.integer({ min: -4, max: 4 }), fc.double({ min: -100, max: 100, noNaN: true }));
   const point = fc.tuple(coordinate, coordinate);
   const segment: fc.Arbitrary<Segment> = fc.oneof(

@@ -266,19 +266,8 @@ function addInnerPoints(w: PolylineWriter, o: number, kind: number, m: number): 
 /**
  * The contour as a closed polyline within `toleranceMm` of it (see the module comment): its
  * monotone pieces (those of intersectPieces.ts `buildPieces`, one segment at a time), each cut into
- * chords. Its arrays are its own.
- */
-export function getContourPolyline(contour: Contour, toleranceMm: number): Polyline {
-  const p = getTransientPolyline(contour, toleranceMm);
-  return {
-    ...p, xs: p.xs.slice(), ys: p.ys.slice(),
-    pieceFirst: p.pieceFirst.slice(), pieceSegment: p.pieceSegment.slice(), pieceOnCircle: p.pieceOnCircle.slice(),
-  };
-}
-
-/**
- * `getContourPolyline`'s polyline in arrays that the next call of this function may overwrite: for a
- * caller that is done with one contour's polyline before it flattens the next.
+ * chords. Its arrays are shared: the next call overwrites them, so a caller is done with one
+ * contour's polyline before it flattens the next (or copies it).
  */
 export function getTransientPolyline(contour: Contour, toleranceMm: number): Polyline {
   const w = flattenContour(contour, toleranceMm), { n, pieces } = w;
@@ -290,7 +279,7 @@ export function getTransientPolyline(contour: Contour, toleranceMm: number): Pol
 }
 
 /**
- * The measures of `getPolylineHull(getContourPolyline(contour, toleranceMm))`, without a polyline
+ * The measures of `getPolylineHull(getTransientPolyline(contour, toleranceMm))`, without a polyline
  * object or the hull's vertices (the flattening is left in arrays that the next one may overwrite).
  */
 export function getContourHullMeasures(contour: Contour, toleranceMm: number): HullMeasures {
@@ -298,7 +287,7 @@ export function getContourHullMeasures(contour: Contour, toleranceMm: number): H
   return measureHull(w.xs, w.ys, getHullOfCoordinates(w.xs, w.ys, w.n), w.deviation);
 }
 
-/** Flattens the contour (see getContourPolyline) into the shared writer, or into one of its own
+/** Flattens the contour (see getTransientPolyline) into the shared writer, or into one of its own
  *  when it is huge, and returns that writer. */
 function flattenContour(contour: Contour, toleranceMm: number): PolylineWriter {
   const segments = contour.segments;
@@ -649,7 +638,7 @@ export interface HullFigures extends HullMeasures {
 }
 
 /**
- * Convex hull figures of a contour flattened by `getContourPolyline`. For curves the hull of the
+ * Convex hull figures of a contour flattened by `getTransientPolyline`. For curves the hull of the
  * polyline (deviation δ) lies inside the true hull, which lies inside it offset by δ: area error
  * ≤ δ·P + πδ², perimeter ≤ 2πδ (Steiner's formula for parallel convex bodies; [src: Steiner 1840 —
  * from memory]).

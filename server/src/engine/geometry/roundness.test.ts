@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { arc, circleArcs, contourFromSegments, contoursFromPathData, ellipseArc, line, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
+import { arc, circleArcs, contourFromSegments, contoursFromPathData, ellipseArc, getContourPolyline, line, polygonSegments, regularPolygonPoints } from '../../../../test/support/shapes';
 import { measureContour } from './measure';
-import { getContourPolyline, getConvexHull, getPolylineHull } from './hull';
+import { getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
 import { findSelfIntersections } from './intersect';
 import { buildChordTree, createOutlineDistance, getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea, type SearchPiece } from './roundness';

@@ -3,7 +3,7 @@
  * them, and on a huge contour they take about as long as the rest of the analysis, so the language
  * server publishes the findings first and the hover cards get these figures a moment later.
  */
-import type { ContourGeometry, ContourMetrics, ContourShape, MeasuredContour, OutlineGeometry } from '../types';
+import type { ContourGeometry, ContourMetrics, ContourShape, OutlineContourResult, OutlineGeometry } from '../types';
 import { isSelfCrossing } from './fileGeometry';
 import { getRoundness } from './roundness';
 
@@ -12,7 +12,7 @@ import { getRoundness } from './roundness';
  * throws to stop.
  */
 export function measureContourShapes(
-  contours: readonly (MeasuredContour & { readonly geometry: OutlineGeometry })[],
+  contours: readonly OutlineContourResult[],
   checkCancelled: () => void,
 ): ContourShape[] {
   const shapes: ContourShape[] = new Array(contours.length);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { findPiecePairs, sortByCode } from './piecePairs';
 import { buildPieces, STRIDE, type Pieces } from './intersectPieces';
-import { contourFromSegments, line, polygonSegments } from '../../../../test/support/shapes';
+import { circleArcs, contourFromSegments, fourCubicCircle, line, polygonSegments } from '../../../../test/support/shapes';
 import type { Contour } from '../types';
 
 /** Brute-force reference: every pair i < j whose end-point boxes, grown by pad, meet (closed boxes). */
@@ -74,6 +74,60 @@ describe('findPiecePairs against a brute-force reference (all pairs, closed-box 
     const ref = bruteForcePairs(P, 0);
     for (let k = 0; k < ref.length; k += 2) all.add(`${ref[k]},${ref[k + 1]}`);
     for (let k = 0; k < got.length; k += 2) expect(all.has(`${got[k]},${got[k + 1]}`)).toBe(true);
+  });
+});
+
+/**
+ * Polylines made of monotone runs: each run keeps one direction on each axis (up, down or none) for
+ * 1–80 steps of 0–2 grid units, so the search meets long monotone leaves ascending and descending
+ * on either axis, runs along one line (zero extent on an axis), equal boxes and boxes that touch.
+ */
+const runPolylines = fc.array(
+  fc.tuple(
+    fc.tuple(fc.integer({ min: 0, max: 40 }), fc.integer({ min: 0, max: 40 })),
+    fc.array(fc.tuple(fc.constantFrom(-1, 0, 1, 1, -1), fc.constantFrom(-1, 0, 1, -1, 1), fc.integer({ min: 1, max: 80 }), fc.integer({ min: 0, max: 1000 })), { minLength: 1, maxLength: 5 }),
+  ),
+  { minLength: 1, maxLength: 6 },
+).map((lines) => lines.map(([[x, y], runs]): Contour => {
+  const pts: [number, number][] = [[x, y]];
+  for (const [sx, sy, length, seed] of runs) {
+    let r = seed;
+    for (let k = 0; k < length; k++) {
+      r = (r * 1103515245 + 12345) % 2 ** 31;
+      x += sx * (r % 3);
+      y += sy * ((r >> 4) % 3);
+      pts.push([x, y]);
+    }
+  }
+  return contourFromSegments(polygonSegments(pts, false), pts.length % 2 === 0);
+}));
+
+describe('findPiecePairs on long monotone runs, against the same brute-force reference', () => {
+  it('finds exactly the meeting pairs on polylines of monotone runs, pad 0, 0.5 and 1 (seed 47)', () => {
+    fc.assert(fc.property(runPolylines, fc.constantFrom(0, 0.5, 1), (contours, pad) => {
+      const P = buildPieces(contours, 0);
+      expect(Array.from(findPiecePairs(P, pad, () => true))).toEqual(bruteForcePairs(P, pad));
+    }), { seed: 47, numRuns: 400 });
+  });
+
+  it('agrees on wavy circles of 1500 lines, one touching another and one crossing it, with cubics and arcs beside them', () => {
+    const wavy = (n: number, cx: number, r: number): [number, number][] => Array.from({ length: n }, (_, k) => {
+      const a = (2 * Math.PI * k) / n, rr = r + 0.4 * Math.sin(37 * a);
+      return [cx + rr * Math.cos(a), rr * Math.sin(a)];
+    });
+    const contours = [
+      contourFromSegments(polygonSegments(wavy(1500, 0, 100), false), true),
+      contourFromSegments(polygonSegments(wavy(1500, 200.8, 100), false), true),
+      contourFromSegments(polygonSegments(wavy(1500, 150, 60), false), true),
+      contourFromSegments(fourCubicCircle(0, 0, 99.8), true),
+      contourFromSegments(circleArcs(200, 0, 100.2, 2), true),
+    ];
+    const P = buildPieces(contours, 0);
+    for (const pad of [0, 1e-9, 0.05]) {
+      const got = findPiecePairs(P, pad, () => true);
+      expect(got.length).toBeGreaterThan(2 * P.count);
+      expect(Array.from(got)).toEqual(bruteForcePairs(P, pad));
+    }
   });
 });
 

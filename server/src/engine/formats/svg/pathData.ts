@@ -182,14 +182,14 @@ class PathDataParser {
   private lastRelative = false;
   private lastStart = 0;
   private lastEnd = 0;
-  private lastX0 = 0;
-  private lastY0 = 0;
   /**
    * The last segment in user units (the close fix edits the text, so it works before the matrix):
-   * its kind, and x1, y1, x2, y2 (control points) and its end point x, y as read.
+   * its kind, and x1, y1, x2, y2 (control points), its end point x, y and its start point x0, y0 as
+   * read. The segment builders read its numbers from here: a double passed to a function that is
+   * not inlined is boxed on the heap (~32 B a segment, a million segments' garbage).
    */
   private lastKind = LINE;
-  private readonly lastPoints = new Float64Array(6);
+  private readonly lastPoints = new Float64Array(8);
 
   /** Where the drawn segments' coordinates go; its first chunk is sized at one coordinate per two
    *  characters of path data (typical data needs less; more chunks come as needed). */
@@ -513,12 +513,12 @@ class PathDataParser {
         this.ctrlKind = 0;
         break;
     }
-    p[4] = x; p[5] = y;
+    p[4] = x; p[5] = y; p[6] = x0; p[7] = y0;
     this.lastKind = kind;
     const spanStart = this.base + start, spanEnd = this.base + end;
     const seg = this.matrix === null
-      ? this.buildSegment(kind, x0, y0, spanStart, spanEnd, this.writer)
-      : this.buildMappedSegment(kind, x0, y0, spanStart, spanEnd, this.matrix);
+      ? this.buildSegment(kind, spanStart, spanEnd, this.writer)
+      : this.buildMappedSegment(kind, spanStart, spanEnd, this.matrix);
     let sub = this.sub;
     if (sub === null) {
       // First drawing command after a Z: a new subpath from the previous subpath's start.
@@ -541,13 +541,11 @@ class PathDataParser {
     this.lastRelative = relative;
     this.lastStart = start;
     this.lastEnd = end;
-    this.lastX0 = x0;
-    this.lastY0 = y0;
   }
 
-  /** The segment of kind `kind` from (x0, y0) through lastPoints (and svgArcCentre for arcs), as read, made by `sink`. */
-  private buildSegment(kind: number, x0: number, y0: number, spanStart: number, spanEnd: number, sink: SegmentSink): Segment {
-    const p = this.lastPoints;
+  /** The segment of kind `kind` in lastPoints (and svgArcCentre for arcs), as read, made by `sink`. */
+  private buildSegment(kind: number, spanStart: number, spanEnd: number, sink: SegmentSink): Segment {
+    const p = this.lastPoints, x0 = p[6]!, y0 = p[7]!;
     switch (kind) {
       case QUAD:
         return sink.quad(x0, y0, p[0]!, p[1]!, p[4]!, p[5]!, spanStart, spanEnd);
@@ -563,9 +561,9 @@ class PathDataParser {
   }
 
   /** buildSegment's segment mapped by m, made once by the writer (the same arithmetic as transformSegment). */
-  private buildMappedSegment(kind: number, x0: number, y0: number, spanStart: number, spanEnd: number, m: Matrix): Segment {
+  private buildMappedSegment(kind: number, spanStart: number, spanEnd: number, m: Matrix): Segment {
     const [a, b, c, d, e, f] = m;
-    const p = this.lastPoints, w = this.writer;
+    const p = this.lastPoints, w = this.writer, x0 = p[6]!, y0 = p[7]!;
     const mx0 = a * x0 + c * y0 + e, my0 = b * x0 + d * y0 + f;
     const mx = a * p[4]! + c * p[5]! + e, my = b * p[4]! + d * p[5]! + f;
     switch (kind) {
@@ -617,12 +615,12 @@ class PathDataParser {
         args: Array.from(this.lastArgs.subarray(0, arity)),
         tokenStarts: Array.from(this.lastTokStart.subarray(0, arity)),
         tokenEnds: Array.from(this.lastTokEnd.subarray(0, arity)),
-        x0: this.lastX0,
-        y0: this.lastY0,
+        x0: this.lastPoints[6]!,
+        y0: this.lastPoints[7]!,
       };
       const last = this.lastKind === ARC
-        ? arcFromSvgEndpoints(this.lastX0, this.lastY0, group.args[0]!, group.args[1]!, group.args[2]!, group.args[3] === 1, group.args[4] === 1, this.lastPoints[4]!, this.lastPoints[5]!, this.span(this.lastStart, this.lastEnd))!
-        : this.buildSegment(this.lastKind, this.lastX0, this.lastY0, this.base + this.lastStart, this.base + this.lastEnd, plainSegments);
+        ? arcFromSvgEndpoints(group.x0, group.y0, group.args[0]!, group.args[1]!, group.args[2]!, group.args[3] === 1, group.args[4] === 1, this.lastPoints[4]!, this.lastPoints[5]!, this.span(this.lastStart, this.lastEnd))!
+        : this.buildSegment(this.lastKind, this.base + this.lastStart, this.base + this.lastEnd, plainSegments);
       result.closeFix = getCloseFix(this.d, this.base, sub.startX, sub.startY, last, group, next);
     }
     this.subpaths.push(result);

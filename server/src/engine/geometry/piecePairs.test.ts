@@ -110,6 +110,31 @@ describe('findPiecePairs on long monotone runs, against the same brute-force ref
     }), { seed: 47, numRuns: 400 });
   });
 
+  it('agrees where a long run reaches infinite coordinates', () => {
+    const steps: [number, number][] = [[0, 0]];
+    for (let k = 1; k <= 40; k++) steps.push([k, k < 30 ? k : 1e308 * k]); // from k = 30 on, y overflows to Infinity
+    const contours = [
+      contourFromSegments(polygonSegments(steps, false), false),
+      contourFromSegments(polygonSegments(steps.map(([x, y]) => [x + 0.5, y]), false), false),
+      contourFromSegments(polygonSegments(steps.map(([x, y]) => [-x, -y]), false), false),
+    ];
+    const P = buildPieces(contours, 0);
+    for (const pad of [0, 0.5]) expect(Array.from(findPiecePairs(P, pad, () => true))).toEqual(bruteForcePairs(P, pad));
+  });
+
+  it('misses no pair where a NaN piece breaks a long run; the pairs beyond the reference all hold a NaN box, which no test can rule out', () => {
+    const broken: [number, number][] = Array.from({ length: 60 }, (_, k) => [k, k === 30 ? Number.NaN : 60 - k]);
+    const P = buildPieces([contourFromSegments(polygonSegments(broken, false), false), contourFromSegments(polygonSegments(broken.map(([x, y]) => [x, y + 0.5]), false), false)], 0);
+    const hasNaN = (i: number) => [4, 5, 6, 7].some((d) => Number.isNaN(P.buf[i * STRIDE + d]!));
+    const got = Array.from(findPiecePairs(P, 0, () => true));
+    const ref = bruteForcePairs(P, 0);
+    const key = (a: readonly number[], k: number) => `${a[k]},${a[k + 1]}`;
+    const gotKeys = new Set(got.map((_, k) => (k % 2 === 0 ? key(got, k) : '')));
+    for (let k = 0; k < ref.length; k += 2) expect(gotKeys.has(key(ref, k))).toBe(true);
+    const refKeys = new Set(ref.map((_, k) => (k % 2 === 0 ? key(ref, k) : '')));
+    for (let k = 0; k < got.length; k += 2) if (!refKeys.has(key(got, k))) expect(hasNaN(got[k]!) || hasNaN(got[k + 1]!)).toBe(true);
+  });
+
   it('agrees on wavy circles of 1500 lines, one touching another and one crossing it, with cubics and arcs beside them', () => {
     const wavy = (n: number, cx: number, r: number): [number, number][] => Array.from({ length: n }, (_, k) => {
       const a = (2 * Math.PI * k) / n, rr = r + 0.4 * Math.sin(37 * a);

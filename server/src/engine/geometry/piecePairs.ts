@@ -313,18 +313,24 @@ export function findPiecePairs(
       const x0 = box[4 * a]!, y0 = box[4 * a + 1]!, x1 = box[4 * a + 2]!, y1 = box[4 * a + 3]!;
       if (x1 < tMinX || y1 < tMinY || x0 > tMaxX || y0 > tMaxY) continue;
       loadAscending(t);
-      const ax0 = (kind & 1) !== 0 ? -x1 : x0, ax1 = (kind & 1) !== 0 ? -x0 : x1;
-      const ay0 = (kind & 2) !== 0 ? -y1 : y0, ay1 = (kind & 2) !== 0 ? -y0 : y1;
-      while (lx > 0 && asc[4 * lx - 2]! >= ax0) lx--;
-      while (lx < tm && asc[4 * lx + 2]! < ax0) lx++;
-      while (hx > 0 && asc[4 * hx - 4]! > ax1) hx--;
-      while (hx < tm && asc[4 * hx]! <= ax1) hx++;
-      while (ly > 0 && asc[4 * ly - 1]! >= ay0) ly--;
-      while (ly < tm && asc[4 * ly + 3]! < ay0) ly++;
-      while (hy > 0 && asc[4 * hy - 3]! > ay1) hy--;
-      while (hy < tm && asc[4 * hy + 1]! <= ay1) hy++;
-      const hi = Math.min(hx, hy);
-      for (let b = Math.max(lx, ly); b < hi; b++) push(Math.min(qs + a, ts + b), Math.max(qs + a, ts + b));
+      // A NaN bound (a piece's box has both or neither) rules nothing out on its axis.
+      const nanX = x0 !== x0, nanY = y0 !== y0;
+      if (!nanX) {
+        const ax0 = (kind & 1) !== 0 ? -x1 : x0, ax1 = (kind & 1) !== 0 ? -x0 : x1;
+        while (lx > 0 && asc[4 * lx - 2]! >= ax0) lx--;
+        while (lx < tm && asc[4 * lx + 2]! < ax0) lx++;
+        while (hx > 0 && asc[4 * hx - 4]! > ax1) hx--;
+        while (hx < tm && asc[4 * hx]! <= ax1) hx++;
+      }
+      if (!nanY) {
+        const ay0 = (kind & 2) !== 0 ? -y1 : y0, ay1 = (kind & 2) !== 0 ? -y0 : y1;
+        while (ly > 0 && asc[4 * ly - 1]! >= ay0) ly--;
+        while (ly < tm && asc[4 * ly + 3]! < ay0) ly++;
+        while (hy > 0 && asc[4 * hy - 3]! > ay1) hy--;
+        while (hy < tm && asc[4 * hy + 1]! <= ay1) hy++;
+      }
+      const lo = Math.max(nanX ? 0 : lx, nanY ? 0 : ly), hi = Math.min(nanX ? tm : hx, nanY ? tm : hy);
+      for (let b = lo; b < hi; b++) push(Math.min(qs + a, ts + b), Math.max(qs + a, ts + b));
     }
   };
   const leafPair = (g: number, h: number) => {

@@ -8,7 +8,7 @@ import { withContourShapes } from './geometry/shapes';
 import type { AnalysisResult, Contour, ContourResult, ContourShape, OutlineAnalysis, OutlineContourResult, SourceSpan } from './types';
 
 /** A contour without segments; `segmentSpans` holds each segment's source span as [start, end, start, end, …]. */
-export interface ContourOutline extends Omit<Contour, 'segments'> {
+export interface ContourOutline extends Omit<Contour, 'segments' | 'stored'> {
   readonly segmentSpans: Int32Array;
 }
 
@@ -35,17 +35,30 @@ export function toFigures(result: OutlineAnalysis): OutlineFigures;
 export function toFigures(result: OutlineAnalysis): OutlineFigures {
   return {
     ...result,
-    contours: result.contours.map(({ contour, ...rest }) => {
-      const { segments, ...outline } = contour;
-      const segmentSpans = new Int32Array(2 * segments.length);
-      segments.forEach((s, i) => {
-        const span = s.span; // a packed segment makes its span on each read
-        segmentSpans[2 * i] = span.start;
-        segmentSpans[2 * i + 1] = span.end;
-      });
-      return { ...rest, contour: { ...outline, segmentSpans } };
-    }),
+    contours: result.contours.map(({ contour, ...rest }) => ({ ...rest, contour: toOutline(contour) })),
   };
+}
+
+/** A contour's fields but its segments, and the segments' spans. */
+function toOutline(contour: Contour): ContourOutline {
+  const stored = contour.stored;
+  if (stored === undefined) {
+    const { segments, ...outline } = contour;
+    const segmentSpans = new Int32Array(2 * segments.length);
+    segments.forEach((s, i) => {
+      const span = s.span; // a packed segment makes its span on each read
+      segmentSpans[2 * i] = span.start;
+      segmentSpans[2 * i + 1] = span.end;
+    });
+    return { ...outline, segmentSpans };
+  }
+  // Stored segments are not made for this: the fields are copied by name, passing over the two that
+  // hold them (reading `segments` would make them).
+  const outline: Record<string, unknown> = {};
+  for (const key of Object.keys(contour)) if (key !== 'segments' && key !== 'stored') outline[key] = contour[key as keyof Contour];
+  const segmentSpans = new Int32Array(2 * stored.count);
+  for (let i = 0; i < stored.count; i++) stored.store.writeSpan(stored.first + i, segmentSpans, 2 * i);
+  return { ...(outline as unknown as Omit<ContourOutline, 'segmentSpans'>), segmentSpans };
 }
 
 /** The figures with each contour's roundness and hull (`shapes` by position, from `measureShapes`). */

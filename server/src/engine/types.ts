@@ -1,3 +1,5 @@
+import type { StoredSegments } from './model/packedSegment';
+
 /**
  * The engine's public data types: what the readers build, what the checks see and what the
  * adapters (language server, CLI) consume. Plain data only — no editor or protocol types here.
@@ -94,6 +96,11 @@ export interface Contour {
   readonly index: number;
   /** Segments in drawing order; consecutive segments share end points. May be empty (a lone moveto). */
   readonly segments: readonly Segment[];
+  /**
+   * Where the segments are kept as numbers, when the reader stored them (SVG path data): `segments`
+   * is then made on first read, and the engine's own loops read them in place (`getSegmentAt`).
+   */
+  readonly stored?: StoredSegments;
   /** True when the file closes it explicitly (SVG `Z`, closed shapes; DXF closed flag, full circles). */
   readonly closed: boolean;
   /** Start point in mm (the moveto / first vertex). */

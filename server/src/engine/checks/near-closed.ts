@@ -15,7 +15,7 @@ export default defineCheck({
   run(ctx) {
     const toleranceMm = ctx.options.nearClosedToleranceMm;
     for (const { contour, metrics } of ctx.contours) {
-      if (metrics.closed || contour.segments.length === 0) continue;
+      if (metrics.closed || metrics.segmentCount === 0) continue;
       if (metrics.gapMm > toleranceMm) continue;
       ctx.report({
         messageId: metrics.gapMm === 0 ? 'touching' : 'gap',

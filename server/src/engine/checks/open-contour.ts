@@ -14,7 +14,7 @@ export default defineCheck({
   },
   run(ctx) {
     for (const { contour, metrics } of ctx.contours) {
-      if (metrics.closed || contour.segments.length === 0) continue;
+      if (metrics.closed || metrics.segmentCount === 0) continue;
       if (metrics.gapMm <= ctx.options.nearClosedToleranceMm) continue;
       ctx.report({
         messageId: 'gap',

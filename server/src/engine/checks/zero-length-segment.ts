@@ -1,6 +1,10 @@
 import { getSegmentEnd, getSegmentLength, getVectorLength } from '../geometry/measure';
 import { ZERO_LENGTH_MM } from '../geometry/tolerances';
 import { defineCheck } from './defineCheck';
+import { getSegmentAt, SegmentView } from '../model/packedSegment';
+
+/** The segment looked at, for a contour whose segments are stored. */
+const segmentView = new SegmentView();
 
 /** A segment that goes nowhere: a repeated point. Machines may pause on it and leave a burn mark. */
 export default defineCheck({
@@ -14,8 +18,9 @@ export default defineCheck({
     for (let pos = 0; pos < ctx.contours.length; pos++) {
       // The measures know each contour's shortest segment: a contour whose segments are all long enough needs no look.
       if (ctx.shortestSegmentMm[pos]! >= ZERO_LENGTH_MM) continue;
-      const { contour } = ctx.contours[pos]!;
-      for (const segment of contour.segments) {
+      const { contour, metrics } = ctx.contours[pos]!;
+      for (let i = 0; i < metrics.segmentCount; i++) {
+        const segment = getSegmentAt(contour, i, segmentView);
         // A curve is never shorter than its chord, so only a segment whose ends (nearly) meet needs its length.
         const [ex, ey] = getSegmentEnd(segment);
         if (getVectorLength(ex - segment.x0, ey - segment.y0) >= ZERO_LENGTH_MM) continue;

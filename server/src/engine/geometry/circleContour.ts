@@ -13,6 +13,10 @@
 import type { Contour } from '../types';
 import { getArcCircle } from './hull';
 import { getVectorLength } from './length';
+import { getSegmentAt, getSegmentCount, SegmentView } from '../model/packedSegment';
+
+/** The segment getContourCircle looks at, for a contour whose segments are stored. */
+const segmentView = new SegmentView();
 
 /** Largest spread of the arcs' centres and radii, and of their gaps, relative to the contour's size
  *  (bbox diagonal), for the contour to count as one circle. [common practice, no source] */
@@ -28,22 +32,25 @@ export interface ContourCircle {
 
 /** The circle a closed contour draws (see the module comment), or null when it draws anything else. */
 export function getContourCircle(contour: Contour, sizeMm: number): ContourCircle | null {
-  const { segments } = contour;
+  const count = getSegmentCount(contour);
   const tolerance = CIRCLE_SPREAD_RELATIVE * sizeMm;
-  if (segments.length === 0 || !(tolerance > 0)) return null;
+  if (count === 0 || !(tolerance > 0)) return null;
   let cx = 0, cy = 0, r = 0, sweep = 0, spread = 0, gap = 0;
-  for (let i = 0; i < segments.length; i++) {
-    const s = segments[i]!;
+  // The end of the segment before the one looked at (the last one's, before the first).
+  const last = getSegmentAt(contour, count - 1, segmentView);
+  let previousX = last.x1, previousY = last.y1;
+  for (let i = 0; i < count; i++) {
+    const s = getSegmentAt(contour, i, segmentView);
     if (s.kind !== 'arc') return null;
     const circle = getArcCircle(s, tolerance);
     // Every arc turns the way of the first that turns at all.
     if (!circle || s.sweep * sweep < 0) return null;
     if (i === 0) { cx = circle.cx; cy = circle.cy; r = circle.r; }
     spread = Math.max(spread, getVectorLength(circle.cx - cx, circle.cy - cy) + Math.abs(circle.r - r) + circle.deviationMm);
-    const previous = segments[i === 0 ? segments.length - 1 : i - 1]!;
-    gap = Math.max(gap, getVectorLength(s.x0 - previous.x1, s.y0 - previous.y1));
+    gap = Math.max(gap, getVectorLength(s.x0 - previousX, s.y0 - previousY));
+    previousX = s.x1; previousY = s.y1;
     sweep += s.sweep;
   }
-  if (!(spread <= tolerance && gap <= tolerance && Math.abs(Math.abs(sweep) - 2 * Math.PI) <= 1e-12 * segments.length)) return null;
+  if (!(spread <= tolerance && gap <= tolerance && Math.abs(Math.abs(sweep) - 2 * Math.PI) <= 1e-12 * count)) return null;
   return { cx, cy, r, deviationMm: spread + gap / 2 };
 }

@@ -28,6 +28,7 @@ import type { Contour, ContourMetrics, Cubic, Quad } from '../types';
 import { CompensatedSum, getSegmentArea } from './area';
 import type { HullMeasures } from './hull';
 import { getVectorLength } from './length';
+import { getSegmentAt, getSegmentCount, SegmentView } from '../model/packedSegment';
 import { BEZIER_LENGTH_REL_TOL } from './tolerances';
 
 /** Largest concave turn (rad) at a joint still taken as rounding of a tangential joint; a larger one
@@ -189,6 +190,9 @@ function addBezier(s: Quad | Cubic, walk: TurnWalk): boolean {
   return true;
 }
 
+/** The segment getConvexContourHull looks at, for a contour whose segments are stored. */
+const segmentView = new SegmentView();
+
 /**
  * The hull measures of a contour that turns one way (see the module comment), or null when it does
  * not (or its turns cannot be told: a Bézier whose control polygon does not turn one way) or has no
@@ -200,11 +204,13 @@ export function getConvexContourHull(contour: Contour, metrics: ContourMetrics):
   const [minX, minY, maxX, maxY] = metrics.bboxMm;
   const sizeMm = getVectorLength(maxX - minX, maxY - minY);
   if (!(sizeMm > 0) || !Number.isFinite(sizeMm)) return null;
-  const { segments, startX: ox, startY: oy } = contour;
+  const { startX: ox, startY: oy } = contour;
+  const count = getSegmentCount(contour);
   const path = pathWalk.start(ox, oy, JOINT_GAP_RELATIVE * sizeMm);
   const { walk, area } = path;
   let hasBezier = false;
-  for (const s of segments) {
+  for (let i = 0; i < count; i++) {
+    const s = getSegmentAt(contour, i, segmentView);
     path.bridge(s.x0, s.y0);
     if (s.kind === 'quad' || s.kind === 'cubic') {
       path.endX = s.kind === 'quad' ? s.x2 : s.x3; path.endY = s.kind === 'quad' ? s.y2 : s.y3;

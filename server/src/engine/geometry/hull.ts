@@ -18,6 +18,7 @@ import { orient2d } from 'robust-predicates';
 import type { Contour, Segment } from '../types';
 import { controlExtent, KIND_ARC, KIND_LINE, KIND_QUAD, SEGMENT_PIECES, STRIDE, writeSegmentPieces } from './intersectPieces';
 import { getVectorLength } from './length';
+import { getSegmentAt, getSegmentCount, SegmentView } from '../model/packedSegment';
 
 /**
  * A contour flattened into a closed polyline, in flat arrays (a huge contour has millions of
@@ -287,19 +288,22 @@ export function getContourHullMeasures(contour: Contour, toleranceMm: number): H
   return measureHull(w.xs, w.ys, getHullOfCoordinates(w.xs, w.ys, w.n), w.deviation);
 }
 
+/** The segment flattenContour looks at, for a contour whose segments are stored. */
+const flattenView = new SegmentView();
+
 /** Flattens the contour (see getTransientPolyline) into the shared writer, or into one of its own
  *  when it is huge, and returns that writer. */
 function flattenContour(contour: Contour, toleranceMm: number): PolylineWriter {
-  const segments = contour.segments;
-  const capacity = segments.length + (segments.length >> 2) + 64;
+  const segmentCount = getSegmentCount(contour);
+  const capacity = segmentCount + (segmentCount >> 2) + 64;
   let w = sharedWriter;
   if (capacity > SHARED_WRITER_MAX) w = new PolylineWriter(capacity);
   else if (w.xs.length < capacity || w.first.length < capacity) w = sharedWriter = new PolylineWriter(capacity);
   w.n = 0; w.pieces = 0;
   let deviation = 0, offCircle = 0;
   let lastX = contour.startX, lastY = contour.startY;
-  for (let si = 0; si < segments.length; si++) {
-    const s = segments[si]!;
+  for (let si = 0; si < segmentCount; si++) {
+    const s = getSegmentAt(contour, si, flattenView);
     if (s.kind === 'line') {
       // The one piece writeSegmentPieces would write, without the buffer.
       if (controlExtent(s) <= 0) continue;

@@ -35,6 +35,7 @@ import {
 import { getBezierPowerCoefficients, getPolynomialRoots } from './intersectRoots';
 import { findPiecePairs } from './piecePairs';
 import { getSegmentLength, getVectorLength } from './length';
+import { getSegmentAt, SegmentView } from '../model/packedSegment';
 
 /** Relative geometric tolerance: "same point" is 1e-9 of the outline's bounding-box diagonal.
  *  Quantity: length · relative to the drawing. Source: REFERENCES.md §7.3 (abs = 1e-9·diagonal). */
@@ -579,6 +580,9 @@ function classify(P: Pieces, a: Place, b: Place, x: number, y: number): 'crossin
   return 'touch';
 }
 
+/** Where the spans of reported places are read, for contours whose segments are stored. */
+const spanView = new SegmentView();
+
 function toContourPlace(P: Pieces, contours: readonly Contour[], piece: number, u: number): ContourPlace {
   const o = piece * STRIDE;
   const ci = P.contourOf[piece]!;
@@ -588,7 +592,7 @@ function toContourPlace(P: Pieces, contours: readonly Contour[], piece: number, 
     contour: ci,
     segment: seg,
     t: P.buf[o + 2]! + u * (P.buf[o + 3]! - P.buf[o + 2]!),
-    span: seg >= 0 ? c.segments[seg]!.span : c.endSpan,
+    span: seg >= 0 ? getSegmentAt(c, seg, spanView).span : c.endSpan,
   };
 }
 
@@ -690,7 +694,7 @@ function toOverlap(P: Pieces, contours: readonly Contour[], raw: readonly RawOve
     const ci = P.contourOf[piece(first)]!;
     const c = contours[ci]!;
     const segment = (k: number) => P.buf[piece(k) * STRIDE + 1]!;
-    const spans = run.map((k) => (segment(k) >= 0 ? c.segments[segment(k)]!.span : c.endSpan));
+    const spans = run.map((k) => (segment(k) >= 0 ? getSegmentAt(c, segment(k), spanView).span : c.endSpan));
     return { contour: ci, firstSegment: segment(first), lastSegment: segment(last), span: spans.reduce(spanUnion) };
   };
   let length = 0;

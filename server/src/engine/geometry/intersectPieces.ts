@@ -17,6 +17,7 @@
 import type { Contour, Cubic, Quad, Segment } from '../types';
 import { addQuadraticRootsInUnitInterval } from './intersectRoots';
 import { getVectorLength } from './length';
+import { getSegmentAt, getSegmentCount, SegmentView } from '../model/packedSegment';
 
 export const STRIDE = 16;
 export const KIND_LINE = 0;
@@ -349,14 +350,18 @@ export function writeSegmentPieces(s: Segment): number {
   return segmentWriter.count;
 }
 
+/** The segment buildPieces looks at, for a contour whose segments are stored. */
+const pieceView = new SegmentView();
+
 /**
  * Cuts the contours into monotone pieces. Segments whose control points all lie within
  * `pointTol` of their start are left out (zero-length segments are their own check); a closed
- * contour whose last end point is not its start gets an implicit closing line (segment −1).
+ * contour whose last end point is not its start gets an implicit closing line (segment −1), and with
+ * `closeAll` so does every other contour (for winding numbers).
  */
-export function buildPieces(contours: readonly Contour[], pointTol: number, reuse = false): Pieces {
+export function buildPieces(contours: readonly Contour[], pointTol: number, reuse = false, closeAll = false): Pieces {
   let segments = 0;
-  for (let ci = 0; ci < contours.length; ci++) segments += contours[ci]!.segments.length;
+  for (let ci = 0; ci < contours.length; ci++) segments += getSegmentCount(contours[ci]!);
   const w = new PieceWriter(segments + (segments >> 1) + contours.length, reuse);
   const cuts: number[] = [];
   const chains: PieceChain[] = [];
@@ -364,11 +369,12 @@ export function buildPieces(contours: readonly Contour[], pointTol: number, reus
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (let ci = 0; ci < contours.length; ci++) {
     const c = contours[ci]!;
-    const segs = c.segments;
+    const segmentCount = getSegmentCount(c);
+    const closed = c.closed || closeAll;
     const first = w.count;
     let lastX = c.startX, lastY = c.startY;
-    for (let si = 0; si < segs.length; si++) {
-      const s = segs[si]!;
+    for (let si = 0; si < segmentCount; si++) {
+      const s = getSegmentAt(c, si, pieceView);
       const extent = controlExtent(s);
       if (extent <= pointTol) continue;
       minKept = Math.min(minKept, extent);
@@ -388,7 +394,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number, reus
     }
     const gap = getVectorLength(lastX - c.startX, lastY - c.startY);
     if (gap > pointTol) minKept = Math.min(minKept, gap);
-    if (c.closed && gap > pointTol) {
+    if (closed && gap > pointTol) {
       addLine(w, ci, -1, lastX, lastY, c.startX, c.startY);
       minX = Math.min(minX, lastX, c.startX);
       maxX = Math.max(maxX, lastX, c.startX);
@@ -396,7 +402,7 @@ export function buildPieces(contours: readonly Contour[], pointTol: number, reus
       maxY = Math.max(maxY, lastY, c.startY);
     }
     const count = w.count - first;
-    chains.push({ contour: ci, first, count, cyclic: count > 0 && (c.closed || gap <= pointTol) });
+    chains.push({ contour: ci, first, count, cyclic: count > 0 && (closed || gap <= pointTol) });
   }
   return {
     buf: w.buf.subarray(0, w.count * STRIDE),

@@ -6,6 +6,7 @@
 import { CompensatedSum, getSegmentArea } from './area';
 import { setSegmentBounds, type Box } from './bounds';
 import { getSegmentLengthFlagged, getVectorLength } from './length';
+import { getSegmentAt, getSegmentCount, SegmentView } from '../model/packedSegment';
 import type { Contour, ContourMetrics, Measured, YAxis } from '../types';
 
 export { CompensatedSum, getSegmentArea } from './area';
@@ -59,18 +60,21 @@ export function measureContourDetailed(contour: Contour, yAxis: YAxis): Detailed
 
 /** Scratch box of measure (filled per segment, read at once; nothing is kept between calls). */
 const segmentBox: Box = [0, 0, 0, 0];
+/** The segment measure looks at, for a contour whose segments are stored. */
+const segmentView = new SegmentView();
 
 /** measureContourDetailed's figures; `facts` (fresh) learns the depth cap and the shortest segment. */
 function measure(contour: Contour, yAxis: YAxis, facts: MeasureFacts): ContourMetrics {
-  const { segments, closed, startX, startY } = contour;
+  const { closed, startX, startY } = contour;
+  const count = getSegmentCount(contour);
   const length = new CompensatedSum();
   const area = new CompensatedSum();
   const box = segmentBox;
   let minX = startX, minY = startY, maxX = startX, maxY = startY;
   let endX = startX, endY = startY;
   let shortest = Infinity; // NaN, once met, stays
-  for (let i = 0; i < segments.length; i++) {
-    const s = segments[i]!;
+  for (let i = 0; i < count; i++) {
+    const s = getSegmentAt(contour, i, segmentView);
     const segmentLength = getSegmentLengthFlagged(s, facts);
     length.add(segmentLength);
     if (segmentLength < shortest || segmentLength !== segmentLength) shortest = segmentLength;
@@ -81,8 +85,8 @@ function measure(contour: Contour, yAxis: YAxis, facts: MeasureFacts): ContourMe
     if (box[2] > maxX) maxX = box[2];
     if (box[3] > maxY) maxY = box[3];
   }
-  const last = segments[segments.length - 1];
-  if (last !== undefined) {
+  if (count > 0) {
+    const last = getSegmentAt(contour, count - 1, segmentView);
     switch (last.kind) {
       case 'line':
       case 'arc':
@@ -140,7 +144,7 @@ function measure(contour: Contour, yAxis: YAxis, facts: MeasureFacts): ContourMe
     q,
     deficitMm2,
     bboxMm: [minX, minY, maxX, maxY],
-    segmentCount: segments.length,
+    segmentCount: count,
   };
 }
 

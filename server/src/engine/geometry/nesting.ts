@@ -10,6 +10,7 @@
 import Flatbush from 'flatbush';
 import type { FileSummary, MeasuredContour, Part } from '../types';
 import { getPiecePoint } from './intersectPieces';
+import { getSegmentCount } from '../model/packedSegment';
 import { createWindingTester, type WindingTester } from './winding';
 
 export interface Nesting {
@@ -35,7 +36,7 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   const indexed: number[] = [];
   for (let i = 0; i < n; i++) {
     const c = contours[i]!;
-    if (c.metrics.closed && c.contour.segments.length > 0) indexed.push(i);
+    if (c.metrics.closed && getSegmentCount(c.contour) > 0) indexed.push(i);
   }
   const parent: (number | null)[] = new Array(n).fill(null);
   const depth: number[] = new Array(n).fill(0);
@@ -105,7 +106,7 @@ export function getFileSummary(contours: readonly MeasuredContour[], nesting: Ne
   let pierces = 0, cutLengthMm = 0;
   for (let i = 0; i < contours.length; i++) {
     const c = contours[i]!;
-    if (c.contour.segments.length > 0) pierces++;
+    if (getSegmentCount(c.contour) > 0) pierces++;
     cutLengthMm += c.metrics.lengthMm;
   }
   return {

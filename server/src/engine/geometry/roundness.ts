@@ -36,6 +36,7 @@ import { getArcCircle, getContourHullMeasures, getPolylineHull, getTransientPoly
 import { getVectorLength } from './length';
 import { distToSegment, simplifyClosedPolyline } from './simplify';
 import { keepShape } from '../keepShape';
+import { getSegmentAt, SegmentView } from '../model/packedSegment';
 
 /** Search tolerance of the branch and bound, relative to the outline's size (bbox diagonal). */
 export const ROUNDNESS_RELATIVE_TOLERANCE = 1e-8;
@@ -161,6 +162,9 @@ function countSearchPieces(poly: Polyline): number {
   return count;
 }
 
+/** The segment outlineFromPolyline asks for its circle, for a contour whose segments are stored. */
+const circleView = new SegmentView();
+
 /**
  * A flattened contour as search pieces: arcs of circles stay exact arcs (their chords are dropped),
  * everything else is its chords. δ is the largest deviation of a flattened piece or of an arc from
@@ -183,7 +187,7 @@ function outlineFromPolyline(poly: Polyline, contour: Contour, toleranceMm: numb
     for (let pass = 0; pass < 2; pass++) for (let i = n - 1; i >= 0; i--) { next[i] = k; if (keep[i]) k = i; }
   }
   const endOf = (k: number) => (k + 1 < count ? pieceFirst[k + 1]! : n);
-  const circleOf = (k: number) => (circles && poly.pieceOnCircle[k] ? getArcCircle(contour.segments[poly.pieceSegment[k]!]!, toleranceMm) : null);
+  const circleOf = (k: number) => (circles && poly.pieceOnCircle[k] ? getArcCircle(getSegmentAt(contour, poly.pieceSegment[k]!, circleView), toleranceMm) : null);
   for (let k = 0; k < count; k++) {
     const end = endOf(k), first = pieceFirst[k]!;
     const ax = xs[first]!, ay = ys[first]!, bx = xs[end % n]!, by = ys[end % n]!;

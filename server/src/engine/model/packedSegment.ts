@@ -9,6 +9,11 @@
  * spread or `Object.keys` sees only `span`. Nothing in the engine copies segments that way; tests
  * compare them through a plain copy (test/support/shapes.ts `toPlainSegment`).
  *
+ * A reader may keep a drawing's segments as numbers only (SegmentStore): a contour then carries where
+ * they are (`Contour.stored`) and makes its segment objects on the first read of `segments`, while
+ * the engine's loops (measures, pieces, checks, flattening) read each in place through a SegmentView
+ * (`getSegmentAt`), so an analysis makes no object per segment.
+ *
  * Layout at offset o: the coordinates in `Segment` field order after `kind` (line x0 y0 x1 y1; quad
  * … x2 y2; cubic … x3 y3; arc x0 y0 x1 y1 cx cy ux uy vx vy theta0 sweep).
  */
@@ -78,30 +83,41 @@ export function withSpan(s: Segment, span: SourceSpan): Segment {
   return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span.start, span.end) : { ...s, span };
 }
 
+/** Kind codes of a SegmentStore, by position in Segment['kind'] order. */
+const KIND_NAMES = ['line', 'quad', 'cubic', 'arc'] as const;
+const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
+
 /**
- * Where a reader writes packed segments: chunks of coordinates that are never moved (segments keep
- * reading the chunk they were written to), each twice the last up to MAX_CHUNK numbers, the first
- * sized by the caller's estimate, so a small drawing holds little and a huge one no huge copy.
+ * Segments kept as numbers: for each its kind, the chunk and offset of its coordinates (layout above)
+ * and its span's two offsets, in typed arrays. A reader writes a whole drawing here and makes no
+ * object per segment; `makeSegment` makes one (a packed segment) when asked for, and SegmentView
+ * reads one in place. A million segment objects that all outlive the reading cost every young-
+ * generation collection that copies them: ~20 % of analysing a 1e6-segment path (DEVELOPERS.md).
+ * Coordinates go to chunks that are never moved, each twice the last up to MAX_CHUNK numbers, the
+ * first sized by the caller's estimate, so a small drawing holds little and a huge one no huge copy.
  */
-export class PackedSegmentWriter implements SegmentSink {
+export class SegmentStore implements SegmentSink<void> {
   /** The chunk `reserve` last returned an offset into. */
   chunk: Float64Array;
   private used = 0;
+  private chunks: Float64Array[] = [];
+  count = 0;
+  private kinds = new Uint8Array(16);
+  private chunkOf = new Int32Array(16);
+  private offsets = new Int32Array(16);
+  private spanStarts = new Int32Array(16);
+  private spanEnds = new Int32Array(16);
 
   constructor(estimate: number) {
     this.chunk = new Float64Array(Math.min(MAX_CHUNK, Math.max(16, estimate)));
-  }
-
-  /** Drops the chunk written last (the segments made keep theirs); the writer is not used again. */
-  release(): void {
-    this.chunk = new Float64Array(0);
-    this.used = 0;
+    this.chunks.push(this.chunk);
   }
 
   /** Room for n coordinates: their offset in `chunk` (a new chunk when the current one is full). */
-  reserve(n: number): number {
+  private reserve(n: number): number {
     if (this.used + n > this.chunk.length) {
       this.chunk = new Float64Array(Math.max(n, Math.min(MAX_CHUNK, 2 * this.chunk.length)));
+      this.chunks.push(this.chunk);
       this.used = 0;
     }
     const o = this.used;
@@ -109,47 +125,120 @@ export class PackedSegmentWriter implements SegmentSink {
     return o;
   }
 
-  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): Segment {
+  /** Records segment `count` of `kind`, its coordinates at `o` in the current chunk. */
+  private record(kind: number, o: number, spanStart: number, spanEnd: number): void {
+    const i = this.count;
+    if (i === this.kinds.length) this.grow();
+    this.kinds[i] = kind;
+    this.chunkOf[i] = this.chunks.length - 1;
+    this.offsets[i] = o;
+    this.spanStarts[i] = spanStart;
+    this.spanEnds[i] = spanEnd;
+    this.count = i + 1;
+  }
+
+  private grow(): void {
+    const n = 2 * this.kinds.length;
+    const kinds = new Uint8Array(n), chunkOf = new Int32Array(n), offsets = new Int32Array(n);
+    const spanStarts = new Int32Array(n), spanEnds = new Int32Array(n);
+    kinds.set(this.kinds); chunkOf.set(this.chunkOf); offsets.set(this.offsets);
+    spanStarts.set(this.spanStarts); spanEnds.set(this.spanEnds);
+    this.kinds = kinds; this.chunkOf = chunkOf; this.offsets = offsets;
+    this.spanStarts = spanStarts; this.spanEnds = spanEnds;
+  }
+
+  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(4), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1;
-    return new PackedLine(c, o, spanStart, spanEnd);
+    this.record(LINE, o, spanStart, spanEnd);
   }
 
-  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): Segment {
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(6), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2;
-    return new PackedQuad(c, o, spanStart, spanEnd);
+    this.record(QUAD, o, spanStart, spanEnd);
   }
 
-  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): Segment {
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(8), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2; c[o + 6] = x3; c[o + 7] = y3;
-    return new PackedCubic(c, o, spanStart, spanEnd);
+    this.record(CUBIC, o, spanStart, spanEnd);
   }
 
   arc(
     x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
     ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,
-  ): Segment {
+  ): void {
     const o = this.reserve(12), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = cx; c[o + 5] = cy;
     c[o + 6] = ux; c[o + 7] = uy; c[o + 8] = vx; c[o + 9] = vy; c[o + 10] = theta0; c[o + 11] = sweep;
-    return new PackedArc(c, o, spanStart, spanEnd);
+    this.record(ARC, o, spanStart, spanEnd);
+  }
+
+  /** Segment i as an object of its own (a packed segment). */
+  makeSegment(i: number): Segment {
+    return makePackedSegment(KIND_NAMES[this.kinds[i]!]!, this.chunks[this.chunkOf[i]!]!, this.offsets[i]!, this.spanStarts[i]!, this.spanEnds[i]!);
+  }
+
+  /** Points `view` at segment i; returns it. */
+  load(view: SegmentView, i: number): SegmentView {
+    view.kind = KIND_NAMES[this.kinds[i]!]!;
+    view.c = this.chunks[this.chunkOf[i]!]!;
+    view.o = this.offsets[i]!;
+    view.spanStart = this.spanStarts[i]!;
+    view.spanEnd = this.spanEnds[i]!;
+    return view;
+  }
+
+  /** Segment i's span offsets into out[at], out[at + 1]. */
+  writeSpan(i: number, out: Int32Array, at: number): void {
+    out[at] = this.spanStarts[i]!;
+    out[at + 1] = this.spanEnds[i]!;
   }
 }
 
 /**
- * Something that makes segments from their fields: packed (PackedSegmentWriter) or plain
- * (`plainSegments`). The span comes as its two offsets, so a packed segment needs no span object.
+ * One stored segment read in place, for loops that look at each segment once and keep nothing of it:
+ * the same fields as a packed segment of its kind (a field of another kind reads a meaningless number),
+ * pointed at another segment by `SegmentStore.load`.
  */
-export interface SegmentSink {
-  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): Segment;
-  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): Segment;
-  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): Segment;
+export class SegmentView {
+  kind: Segment['kind'] = 'line';
+  c: Float64Array = new Float64Array(0);
+  o = 0;
+  spanStart = 0;
+  spanEnd = 0;
+  get span(): SourceSpan { return { start: this.spanStart, end: this.spanEnd }; }
+  get x0(): number { return this.c[this.o]!; }
+  get y0(): number { return this.c[this.o + 1]!; }
+  get x1(): number { return this.c[this.o + 2]!; }
+  get y1(): number { return this.c[this.o + 3]!; }
+  get x2(): number { return this.c[this.o + 4]!; }
+  get y2(): number { return this.c[this.o + 5]!; }
+  get x3(): number { return this.c[this.o + 6]!; }
+  get y3(): number { return this.c[this.o + 7]!; }
+  get cx(): number { return this.c[this.o + 4]!; }
+  get cy(): number { return this.c[this.o + 5]!; }
+  get ux(): number { return this.c[this.o + 6]!; }
+  get uy(): number { return this.c[this.o + 7]!; }
+  get vx(): number { return this.c[this.o + 8]!; }
+  get vy(): number { return this.c[this.o + 9]!; }
+  get theta0(): number { return this.c[this.o + 10]!; }
+  get sweep(): number { return this.c[this.o + 11]!; }
+}
+
+/**
+ * Something that takes segments by their fields: a store (SegmentStore) or plain objects
+ * (`plainSegments`). The span comes as its two offsets, so a stored segment needs no span object.
+ */
+export interface SegmentSink<T = Segment> {
+  line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): T;
+  quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): T;
+  cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): T;
   arc(
     x0: number, y0: number, x1: number, y1: number, cx: number, cy: number,
     ux: number, uy: number, vx: number, vy: number, theta0: number, sweep: number, spanStart: number, spanEnd: number,
-  ): Segment;
+  ): T;
 }
 
 /** Plain segment objects, for the few segments made outside a drawing's bulk (fixes, small shapes). */
@@ -160,5 +249,51 @@ export const plainSegments: SegmentSink = {
   arc: (x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, start, end) => ({ kind: 'arc', x0, y0, x1, y1, cx, cy, ux, uy, vx, vy, theta0, sweep, span: { start, end } }),
 };
 
-/** Largest chunk of a PackedSegmentWriter: 512 KB. */
+/** Largest chunk of a SegmentStore: 512 KB. */
 const MAX_CHUNK = 1 << 16;
+
+/** A contour's segments kept in a store: its positions [first, first + count). */
+export interface StoredSegments {
+  readonly store: SegmentStore;
+  readonly first: number;
+  readonly count: number;
+}
+
+/**
+ * `fields` with `stored` and a `segments` made from it on first read and kept then (an own, enumerable
+ * accessor, so a spread or a destructuring reads the segments like a data field).
+ */
+export function withStoredSegments<T extends object>(fields: T, stored: StoredSegments): T & { readonly stored: StoredSegments; readonly segments: readonly Segment[] } {
+  let made: Segment[] | undefined;
+  const segments = (): Segment[] => {
+    if (made === undefined) {
+      made = new Array<Segment>(stored.count);
+      for (let i = 0; i < stored.count; i++) made[i] = stored.store.makeSegment(stored.first + i);
+    }
+    return made;
+  };
+  return Object.defineProperty(Object.assign(fields, { stored }), 'segments', { get: segments, enumerable: true, configurable: true }) as T & {
+    readonly stored: StoredSegments; readonly segments: readonly Segment[];
+  };
+}
+
+/** What getSegmentAt reads: a contour's segments, stored or as objects. */
+interface SegmentsOf {
+  readonly segments: readonly Segment[];
+  readonly stored?: StoredSegments | undefined;
+}
+
+/**
+ * Segment i of a contour: its object, or for stored segments `view` pointed at it (valid until the
+ * view is loaded again), so a loop that looks at each segment once makes no object.
+ */
+export function getSegmentAt(contour: SegmentsOf, i: number, view: SegmentView): Segment {
+  const s = contour.stored;
+  return s === undefined ? contour.segments[i]! : s.store.load(view, s.first + i) as unknown as Segment;
+}
+
+/** How many segments a contour has, without making stored ones. */
+export function getSegmentCount(contour: SegmentsOf): number {
+  const s = contour.stored;
+  return s === undefined ? contour.segments.length : s.count;
+}

@@ -1,7 +1,7 @@
 import type { Fix, Segment, SourceSpan } from '../../types';
 import { arcFromSvgEndpoints, getSvgArcCentre, SVG_ARC, svgArcCentre } from '../../geometry/arc';
 import { isIdentityMatrix, type Matrix } from '../../geometry/transform';
-import { PackedSegmentWriter, plainSegments, type SegmentSink } from '../../model/packedSegment';
+import { plainSegments, SegmentStore, withStoredSegments, type SegmentSink, type StoredSegments } from '../../model/packedSegment';
 import { getCloseFix, type ArgumentGroup, type DrawCommand, type FollowingMoveto } from './closePath';
 import { keepShape } from '../../keepShape';
 
@@ -25,8 +25,10 @@ export interface PathSubpath {
   /**
    * Drawn segments, mapped by the matrix given to `parsePathData` (built once, in final
    * coordinates); H/V and zero-radius arcs are lines, arcs with coinciding ends zero-length lines.
+   * Made on first read from `stored`, where the reader keeps them as numbers.
    */
-  segments: Segment[];
+  readonly segments: readonly Segment[];
+  readonly stored: StoredSegments;
   /** Ended by Z/z. */
   closed: boolean;
   /** Start point (the moveto, or after a Z the previous subpath's start), user units (not mapped). */
@@ -121,7 +123,8 @@ function getArity(upper: string): number {
 }
 
 interface SubpathBuilder {
-  segments: Segment[];
+  /** Position in the store of the subpath's first segment. */
+  first: number;
   closed: boolean;
   startX: number;
   startY: number;
@@ -135,6 +138,7 @@ interface SubpathBuilder {
 
 const ENCODER = new TextEncoder();
 const NO_BYTES = new Uint8Array(0);
+const NO_SEGMENTS = new SegmentStore(0);
 
 /**
  * One byte per UTF-16 code unit of `d`: the unit itself when it is ASCII, 0xFF (which no path data
@@ -191,9 +195,9 @@ class PathDataParser {
   private lastKind = LINE;
   private readonly lastPoints = new Float64Array(8);
 
-  /** Where the drawn segments' coordinates go; its first chunk is sized at one coordinate per two
+  /** Where the drawn segments go; its first chunk of coordinates is sized at one coordinate per two
    *  characters of path data (typical data needs less; more chunks come as needed). */
-  private readonly writer: PackedSegmentWriter;
+  private store: SegmentStore;
 
   /** The data's code units as bytes, read instead of the string (see getPathBytes). */
   private codes: Uint8Array;
@@ -201,7 +205,7 @@ class PathDataParser {
   constructor(private d: string, private readonly base: number, private readonly matrix: Matrix | null) {
     this.n = d.length;
     this.codes = getPathBytes(d);
-    this.writer = new PackedSegmentWriter(d.length >> 1);
+    this.store = new SegmentStore(d.length >> 1);
     keepShape(this);
   }
 
@@ -213,7 +217,7 @@ class PathDataParser {
     this.subpaths = [];
     this.error = undefined;
     this.sub = null;
-    this.writer.release();
+    this.store = NO_SEGMENTS;
   }
 
   run(): void {
@@ -307,7 +311,7 @@ class PathDataParser {
     const restStart = this.i < this.n && isNumberStart(this.codes[this.i]!) ? this.i : -1;
     this.finishSubpath(relative ? { letterStart: letter, pairEnd, restStart, x, y } : null);
     this.sub = {
-      segments: [],
+      first: this.store.count,
       closed: false,
       startX: x,
       startY: y,
@@ -515,19 +519,17 @@ class PathDataParser {
     }
     p[4] = x; p[5] = y; p[6] = x0; p[7] = y0;
     this.lastKind = kind;
-    const spanStart = this.base + start, spanEnd = this.base + end;
-    const seg = this.matrix === null
-      ? this.buildSegment(kind, spanStart, spanEnd, this.writer)
-      : this.buildMappedSegment(kind, spanStart, spanEnd, this.matrix);
     let sub = this.sub;
     if (sub === null) {
       // First drawing command after a Z: a new subpath from the previous subpath's start.
       sub = this.sub = {
-        segments: [], closed: false, startX: this.sx, startY: this.sy,
+        first: this.store.count, closed: false, startX: this.sx, startY: this.sy,
         spanStart: start, spanEnd: end, startSpan: this.span(start, end), endStart: start, endEnd: end,
       };
     }
-    sub.segments.push(seg);
+    const spanStart = this.base + start, spanEnd = this.base + end;
+    if (this.matrix === null) this.buildSegment(kind, spanStart, spanEnd, this.store);
+    else this.buildMappedSegment(kind, spanStart, spanEnd, this.matrix);
     sub.spanEnd = end;
     sub.endStart = start;
     sub.endEnd = end;
@@ -543,8 +545,8 @@ class PathDataParser {
     this.lastEnd = end;
   }
 
-  /** The segment of kind `kind` in lastPoints (and svgArcCentre for arcs), as read, made by `sink`. */
-  private buildSegment(kind: number, spanStart: number, spanEnd: number, sink: SegmentSink): Segment {
+  /** The segment of kind `kind` in lastPoints (and svgArcCentre for arcs), as read, given to `sink`. */
+  private buildSegment<T>(kind: number, spanStart: number, spanEnd: number, sink: SegmentSink<T>): T {
     const p = this.lastPoints, x0 = p[6]!, y0 = p[7]!;
     switch (kind) {
       case QUAD:
@@ -560,10 +562,10 @@ class PathDataParser {
     }
   }
 
-  /** buildSegment's segment mapped by m, made once by the writer (the same arithmetic as transformSegment). */
-  private buildMappedSegment(kind: number, spanStart: number, spanEnd: number, m: Matrix): Segment {
+  /** buildSegment's segment mapped by m, stored once (the same arithmetic as transformSegment). */
+  private buildMappedSegment(kind: number, spanStart: number, spanEnd: number, m: Matrix): void {
     const [a, b, c, d, e, f] = m;
-    const p = this.lastPoints, w = this.writer, x0 = p[6]!, y0 = p[7]!;
+    const p = this.lastPoints, w = this.store, x0 = p[6]!, y0 = p[7]!;
     const mx0 = a * x0 + c * y0 + e, my0 = b * x0 + d * y0 + f;
     const mx = a * p[4]! + c * p[5]! + e, my = b * p[4]! + d * p[5]! + f;
     switch (kind) {
@@ -596,16 +598,16 @@ class PathDataParser {
     const sub = this.sub;
     if (sub === null) return;
     this.sub = null;
-    const result: PathSubpath = {
-      segments: sub.segments,
+    const count = this.store.count - sub.first;
+    const result: PathSubpath & { closeFix?: Fix } = withStoredSegments({
       closed: sub.closed,
       startX: sub.startX,
       startY: sub.startY,
       span: this.span(sub.spanStart, sub.spanEnd),
       startSpan: sub.startSpan,
       endSpan: this.span(sub.endStart, sub.endEnd),
-    };
-    if (!sub.closed && sub.segments.length > 0) {
+    }, { store: this.store, first: sub.first, count });
+    if (!sub.closed && count > 0) {
       const arity = getArity(this.lastCommand);
       const group: ArgumentGroup = {
         command: this.lastCommand,

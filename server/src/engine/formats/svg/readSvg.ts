@@ -4,7 +4,7 @@ import {
 import type {
   AssumedUnit, Contour, Fix, RawFinding, ReadResult, Segment, SourceSpan, UnitsInfo,
 } from '../../types';
-import { withSpan } from '../../model/packedSegment';
+import { withSpan, withStoredSegments, type StoredSegments } from '../../model/packedSegment';
 import { parsePathData } from './pathData';
 import { getPositionedValue, scanDocument, type ScannedDocument, type SvgElement } from './scan';
 import { BASIC_SHAPES, getShapeOutline, readLength, type LengthContext } from './shapes';
@@ -354,16 +354,15 @@ class SvgReader {
 
   // ── contours ────────────────────────────────────────────────────────────────────────────────
 
-  /** `segments` are already mapped by `matrix`; the start point is mapped here. */
+  /** The segments (as objects, or stored) are already mapped by `matrix`; the start point is mapped here. */
   private addContour(el: SvgElement, state: WalkState, matrix: Matrix, c: {
-    segments: readonly Segment[]; closed: boolean; startX: number; startY: number;
+    closed: boolean; startX: number; startY: number;
     span: SourceSpan; startSpan: SourceSpan; endSpan: SourceSpan; closeFix?: Fix | undefined;
-  }): void {
+  } & ({ segments: readonly Segment[] } | { stored: StoredSegments })): void {
     const [startX, startY] = transformPoint(matrix, c.startX, c.startY);
     const id = el.attributes.get('id')?.value;
-    const contour: Contour = {
+    const fields = {
       index: this.contours.length,
-      segments: c.segments,
       closed: c.closed,
       startX,
       startY,
@@ -375,7 +374,7 @@ class SvgReader {
       ...(id !== undefined ? { id } : {}),
       ...(c.closeFix ? { closeFix: c.closeFix } : {}),
     };
-    this.contours.push(contour);
+    this.contours.push('stored' in c ? withStoredSegments(fields, c.stored) : { ...fields, segments: c.segments });
   }
 
   private addShape(el: SvgElement, state: WalkState): void {
@@ -409,12 +408,12 @@ class SvgReader {
     if (parsed.subpaths.length === 0) return;
     this.getTransform(el);
     for (const sub of parsed.subpaths) {
-      const segments = offsets ? sub.segments.map((s) => withSpan(s, mapSpan(s.span))) : sub.segments;
+      const segments = offsets ? { segments: sub.segments.map((s) => withSpan(s, mapSpan(s.span))) } : { stored: sub.stored };
       const closeFix = sub.closeFix && offsets
         ? { title: sub.closeFix.title, edits: sub.closeFix.edits.map((e) => ({ span: mapSpan(e.span), newText: e.newText })) }
         : sub.closeFix;
       this.addContour(el, state, matrix, {
-        segments,
+        ...segments,
         closed: sub.closed,
         startX: sub.startX,
         startY: sub.startY,

@@ -97,7 +97,7 @@ export interface Contour {
   /** Segments in drawing order; consecutive segments share end points. May be empty (a lone moveto). */
   readonly segments: readonly Segment[];
   /**
-   * Where the segments are kept as numbers, when the reader stored them (SVG path data): `segments`
+   * Where the segments are kept as numbers, when the reader stored them (SVG path data, DXF): `segments`
    * is then made on first read, and the engine's own loops read them in place (`getSegmentAt`).
    */
   readonly stored?: StoredSegments;

@@ -102,15 +102,34 @@ export class SegmentStore implements SegmentSink<void> {
   private used = 0;
   private chunks: Float64Array[] = [];
   count = 0;
-  private kinds = new Uint8Array(16);
-  private chunkOf = new Int32Array(16);
-  private offsets = new Int32Array(16);
-  private spanStarts = new Int32Array(16);
-  private spanEnds = new Int32Array(16);
+  private kinds: Uint8Array = new Uint8Array(16);
+  private chunkOf: Int32Array = new Int32Array(16);
+  private offsets: Int32Array = new Int32Array(16);
+  private spanStarts: Int32Array = new Int32Array(16);
+  private spanEnds: Int32Array = new Int32Array(16);
 
   constructor(estimate: number) {
     this.chunk = new Float64Array(Math.min(MAX_CHUNK, Math.max(16, estimate)));
     this.chunks.push(this.chunk);
+  }
+
+  /**
+   * A store of segments laid out already: all coordinates in `coordinates` (layout above), and per
+   * segment its kind code (0 line, 1 quad, 2 cubic, 3 arc), offset and span. The arrays are taken,
+   * not copied; nothing is added to the store after.
+   */
+  static of(coordinates: Float64Array, kinds: Uint8Array, offsets: Int32Array, spanStarts: Int32Array, spanEnds: Int32Array): SegmentStore {
+    const store = new SegmentStore(0);
+    store.chunk = coordinates;
+    store.chunks = [coordinates];
+    store.used = coordinates.length;
+    store.count = kinds.length;
+    store.kinds = kinds;
+    store.chunkOf = new Int32Array(kinds.length);
+    store.offsets = offsets;
+    store.spanStarts = spanStarts;
+    store.spanEnds = spanEnds;
+    return store;
   }
 
   /** Room for n coordinates: their offset in `chunk` (a new chunk when the current one is full). */
@@ -259,22 +278,26 @@ export interface StoredSegments {
   readonly count: number;
 }
 
+/** The getter of `segments` that withStoredSegments gives: makes them, and puts them in its place. */
+function makeStoredSegments(this: { readonly stored: StoredSegments }): readonly Segment[] {
+  const { store, first, count } = this.stored;
+  const made = new Array<Segment>(count);
+  for (let i = 0; i < count; i++) made[i] = store.makeSegment(first + i);
+  Object.defineProperty(this, 'segments', { value: made, enumerable: true, configurable: true });
+  return made;
+}
+
+const STORED_SEGMENTS: PropertyDescriptor = { get: makeStoredSegments, enumerable: true, configurable: true };
+
 /**
  * `fields` with `stored` and a `segments` made from it on first read and kept then (an own, enumerable
- * accessor, so a spread or a destructuring reads the segments like a data field).
+ * accessor until then, so a spread or a destructuring reads the segments like a data field). One
+ * getter serves every contour: a drawing of 250 000 contours makes no function per contour.
  */
 export function withStoredSegments<T extends object>(fields: T, stored: StoredSegments): T & { readonly stored: StoredSegments; readonly segments: readonly Segment[] } {
-  let made: Segment[] | undefined;
-  const segments = (): Segment[] => {
-    if (made === undefined) {
-      made = new Array<Segment>(stored.count);
-      for (let i = 0; i < stored.count; i++) made[i] = stored.store.makeSegment(stored.first + i);
-    }
-    return made;
-  };
-  return Object.defineProperty(Object.assign(fields, { stored }), 'segments', { get: segments, enumerable: true, configurable: true }) as T & {
-    readonly stored: StoredSegments; readonly segments: readonly Segment[];
-  };
+  const contour = fields as T & { stored: StoredSegments; readonly segments: readonly Segment[] };
+  contour.stored = stored;
+  return Object.defineProperty(contour, 'segments', STORED_SEGMENTS);
 }
 
 /** What getSegmentAt reads: a contour's segments, stored or as objects. */

@@ -2,6 +2,10 @@ import { describe, expect, it } from 'vitest';
 import type { Arc, Segment } from '../../types';
 import { toPlainSegment } from '../../../../../test/support/shapes';
 import { PieceStore, type PieceFacts } from './pieceStore';
+import type { SegmentStore } from '../../model/packedSegment';
+
+/** Every segment of a store, each made as an object. */
+const made = (store: SegmentStore): Segment[] => Array.from({ length: store.count }, (_, i) => store.makeSegment(i));
 
 const span = { start: 0, end: 10 };
 const facts: PieceFacts = {
@@ -16,8 +20,8 @@ function roundTrip(segments: Segment[]): { forward: Segment[]; backward: Segment
   const store = new PieceStore();
   for (const s of segments) store.addSegment(null, s, s.span.start, s.span.end);
   store.addPiece(facts);
-  const forward = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments;
-  const backward = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(1), 1).segments;
+  const forward = made(store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments);
+  const backward = made(store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(1), 1).segments);
   return { forward: forward.map(toPlainSegment), backward: backward.map(toPlainSegment) };
 }
 
@@ -60,8 +64,8 @@ describe('PieceStore', () => {
     const m = { a: 0, b: 2, c: -2, d: 0, e: 5, f: -1 }; // rotate 90°, scale 2, move by (5, −1)
     store.addSegment(m, a, 2, 4);
     store.addPiece(facts);
-    const out = store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments;
-    expect(toPlainSegment(out[0])).toEqual({ ...a, x0: 5, y0: 1, x1: 3, y1: -1, cx: 5, cy: -1, ux: 0, uy: 2, vx: -2, vy: 0, span: { start: 2, end: 4 } });
+    const out = made(store.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(0), 1).segments);
+    expect(toPlainSegment(out[0]!)).toEqual({ ...a, x0: 5, y0: 1, x1: 3, y1: -1, cx: 5, cy: -1, ux: 0, uy: 2, vx: -2, vy: 0, span: { start: 2, end: 4 } });
   });
 
   it('puts pieces in the order asked for, each forwards or backwards, and leaves out the pieces not asked for', () => {
@@ -79,9 +83,9 @@ describe('PieceStore', () => {
       const one = new PieceStore();
       for (const s of pieces[i]!) one.addSegment(null, s, s.span.start, s.span.end);
       one.addPiece(facts);
-      return one.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(back[k]!), 1).segments.map(toPlainSegment);
+      return made(one.getSegmentsInOrder(Int32Array.of(0), Uint8Array.of(back[k]!), 1).segments).map(toPlainSegment);
     });
-    expect(out.map(toPlainSegment)).toEqual(alone.flat());
+    expect(made(out).map(toPlainSegment)).toEqual(alone.flat());
     expect([...starts]).toEqual([0, 1, 3, 6, 7]); // pieces of 1, 2, 3 and 1 segments
   });
 

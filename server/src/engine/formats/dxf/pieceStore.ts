@@ -4,7 +4,7 @@
  * then holds no object per piece or per segment while it is read and chained; the result's segments
  * are written once, packed, in contour order and drawing direction (`getSegmentsInOrder`).
  */
-import { makePackedSegment } from '../../model/packedSegment';
+import { SegmentStore } from '../../model/packedSegment';
 import type { Segment, SourceSpan } from '../../types';
 import type { PointGroups } from './entities';
 import type { Affine } from './transform';
@@ -48,10 +48,9 @@ export interface PieceFacts {
   readonly unflaggedPolyline: boolean;
 }
 
-/** Segment kinds in the store and their number of coordinates (`Segment` field order after `kind`). */
+/** Segment kinds in the store (SegmentStore's codes) and their number of coordinates (`Segment` field order after `kind`). */
 const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
 const COORDINATES = [4, 6, 8, 12];
-const KIND_NAMES: readonly Segment['kind'][] = ['line', 'quad', 'cubic', 'arc'];
 /** Offset of the end point's x among a segment's coordinates, by kind. */
 const END_AT = [2, 4, 6, 2];
 
@@ -295,13 +294,14 @@ export class PieceStore {
   /**
    * The segments of the pieces seq[0..count) (each piece at most once) in that order, a piece walked
    * backwards where reversed[k] is 1 (its segments in reverse order, each reversed: ends and control
-   * points swapped, an arc by θ0' = θ0 + sweep, sweep' = −sweep), packed on one array of coordinates
-   * (packedSegment.ts); starts[k] is the first segment of seq[k], starts[count] their number. The
+   * points swapped, an arc by θ0' = θ0 + sweep, sweep' = −sweep), stored on one array of coordinates
+   * (packedSegment.ts `SegmentStore`, no object per segment); starts[k] is the position of seq[k]'s
+   * first segment in the store, starts[count] their number. The
    * pieces are read in stored order and each is written where `seq` puts it: walking `seq` instead
    * would cost a chain of dependent cache misses a piece (its record, its segments, its coordinates)
    * on a shuffled file, where these stores do not wait on one another.
    */
-  getSegmentsInOrder(seq: Int32Array, reversed: Uint8Array, count: number): { segments: Segment[]; starts: Int32Array } {
+  getSegmentsInOrder(seq: Int32Array, reversed: Uint8Array, count: number): { segments: SegmentStore; starts: Int32Array } {
     const n = this.pieceCount, sg = this.segments, c = this.coordinates;
     /** The first coordinate of segment j (the end of them all for j = segmentCount). */
     const coordinateOf = (j: number) => (j < this.segmentCount ? sg[SEGMENT_WIDTH * j + COORDINATE_AT] : this.coordinateCount);
@@ -356,8 +356,6 @@ export class PieceStore {
         kinds[t] = kind; offsets[t] = o; spanStarts[t] = sg[r + SPAN_START]; spanEnds[t] = sg[r + SPAN_END];
       }
     }
-    const segments: Segment[] = new Array<Segment>(segmentTotal);
-    for (let t = 0; t < segmentTotal; t++) segments[t] = makePackedSegment(KIND_NAMES[kinds[t]], d, offsets[t], spanStarts[t], spanEnds[t]);
-    return { segments, starts };
+    return { segments: SegmentStore.of(d, kinds, offsets, spanStarts, spanEnds), starts };
   }
 }

@@ -12,6 +12,7 @@
 import { fillTemplate, formatNumber } from '../../format';
 import { CHAIN_TOLERANCE_MM } from '../../geometry/tolerances';
 import { chainPieces, getChainCount } from '../../model/chain';
+import { SegmentView, withStoredSegments } from '../../model/packedSegment';
 import type { AssumedUnit, Contour, Fix, RawFinding, ReadResult, SourceSpan, TextEdit, UnitsInfo } from '../../types';
 import { findPointRef, parseDxfDocument, releaseDxfDocument, type DocumentSoFar, type DxfEntity, type EntitySink, type PointGroups, type PointRef, type SimpleEntity } from './entities';
 import { GroupScanner, isBinaryDxf } from './groups';
@@ -289,6 +290,9 @@ function getGapMm(gap: Gap): number {
   return getVectorLength(gap[2] - gap[0], gap[3] - gap[1]);
 }
 
+/** Where buildContours reads each contour's start point. */
+const startView = new SegmentView();
+
 /**
  * Contours from the pieces: closed pieces as they are, open ones chained; numbered in the order of
  * their first entity (closed pieces before chains of the same order, each list in its own order),
@@ -392,14 +396,14 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     // A contour starts at its first piece's start (its end when walked backwards) and ends at its last piece's end.
     const startSpan = store.getSpanLike(p, reversed[from] ? 2 : 1, span);
     const endSpan = store.getSpanLike(last, reversed[to - 1] ? 1 : 2, span);
-    const own = segments.slice(starts[from], starts[to]);
-    contours[index] = {
-      index, segments: own, closed: k < 0 || chainClosed[k] === 1,
-      startX: own[0].x0, startY: own[0].y0,
+    const first = segments.load(startView, starts[from]);
+    contours[index] = withStoredSegments({
+      index, closed: k < 0 || chainClosed[k] === 1,
+      startX: first.x0, startY: first.y0,
       span, startSpan, endSpan, elementSpan: span,
       element: store.getElement(p), id: store.getHandle(p, text), layer: store.getLayer(p),
       closeFix: k < 0 ? undefined : fixes.get(k),
-    };
+    }, { store: segments, first: starts[from], count: starts[to] - starts[from] });
   }
   return contours;
 }

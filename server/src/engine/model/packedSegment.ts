@@ -101,6 +101,7 @@ export class SegmentStore implements SegmentSink<void> {
   chunk: Float64Array;
   private used = 0;
   private chunks: Float64Array[] = [];
+  /** Segments stored so far (positions 0 … count − 1); only the store changes it. */
   count = 0;
   private kinds: Uint8Array = new Uint8Array(16);
   private chunkOf: Int32Array = new Int32Array(16);

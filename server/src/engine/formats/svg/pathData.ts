@@ -599,7 +599,7 @@ class PathDataParser {
     if (sub === null) return;
     this.sub = null;
     const count = this.store.count - sub.first;
-    const result: PathSubpath & { closeFix?: Fix } = withStoredSegments({
+    const result: PathSubpath = withStoredSegments({
       closed: sub.closed,
       startX: sub.startX,
       startY: sub.startY,

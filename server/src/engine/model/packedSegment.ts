@@ -1,54 +1,51 @@
 /**
- * Segments that read their coordinates from a shared Float64Array. A segment object with its numbers
- * as fields holds each number as a heap box of its own (V8 keeps no double unboxed in an object), so a
- * line is 5 heap objects and an arc 13; a million-segment drawing is then hundreds of megabytes that
- * every collection walks. These hold the array, an offset and the span's two offsets: one small
- * object a segment (its `span` is made when asked for, a new object each time),
- * the numbers in one block. They satisfy the `Segment` interfaces field for field (getters), so no
- * reader of segments can tell them apart from plain ones, except that they are not plain data: a
- * spread or `Object.keys` sees only `span`. Nothing in the engine copies segments that way; tests
- * compare them through a plain copy (test/support/shapes.ts `toPlainSegment`).
- *
- * A reader may keep a drawing's segments as numbers only (SegmentStore): a contour then carries where
- * they are (`Contour.stored`) and makes its segment objects on the first read of `segments`, while
- * the engine's loops (measures, pieces, checks, flattening) read each in place through a SegmentView
- * (`getSegmentAt`), so an analysis makes no object per segment.
+ * Segments kept as numbers. A segment object with its numbers as fields holds each number as a heap
+ * box of its own (V8 keeps no double unboxed in an object), so a line is 5 heap objects and an arc 13;
+ * and even one small object a segment, a million of them outliving the reading, is what every
+ * young-generation collection copies. So the readers keep a drawing's segments in a SegmentStore
+ * (kinds, offsets and spans in typed arrays, coordinates in Float64Array chunks), a contour carries
+ * where its own are (`Contour.stored`) and makes its segment objects on the first read of `segments`,
+ * and the engine's loops (measures, pieces, checks, flattening) read each in place through a
+ * SegmentView (`getSegmentAt`): an analysis makes no object per segment. A made segment satisfies the
+ * `Segment` interfaces field for field (getters), so no reader of segments can tell it from a plain
+ * one, except that it is not plain data: a spread or `Object.keys` sees its array and offsets, not its
+ * coordinates. Nothing in the engine copies segments that way; tests compare them through a plain copy
+ * (test/support/shapes.ts `toPlainSegment`).
  *
  * Layout at offset o: the coordinates in `Segment` field order after `kind` (line x0 y0 x1 y1; quad
  * … x2 y2; cubic … x3 y3; arc x0 y0 x1 y1 cx cy ux uy vx vy theta0 sweep).
  */
-import type { Arc, Cubic, Line, Quad, Segment, SourceSpan } from '../types';
+import type { Segment, SourceSpan } from '../types';
 import { keepShape } from '../keepShape';
 
-abstract class PackedSegment {
-  constructor(readonly c: Float64Array, readonly o: number, private readonly spanStart: number, private readonly spanEnd: number) {}
+const NO_COORDINATES = new Float64Array(0);
+
+/**
+ * A segment read in place: its kind, the array and offset of its coordinates (layout above) and its
+ * span's two offsets (the `span` object is made when asked for, a new object each time), with a getter
+ * for every field of every kind, of which only its own kind's mean anything. Both the segments a
+ * contour makes (`SegmentStore.makeSegment`, never changed after) and the views that the engine's loops
+ * point at one stored segment after another (`SegmentStore.load`, `getSegmentAt`) are SegmentViews, so
+ * a function that reads segments meets one layout for every stored segment.
+ */
+export class SegmentView {
+  constructor(
+    public kind: Segment['kind'] = 'line',
+    public c: Float64Array = NO_COORDINATES,
+    public o = 0,
+    public spanStart = 0,
+    public spanEnd = 0,
+  ) {}
+
   get span(): SourceSpan { return { start: this.spanStart, end: this.spanEnd }; }
   get x0(): number { return this.c[this.o]!; }
   get y0(): number { return this.c[this.o + 1]!; }
   get x1(): number { return this.c[this.o + 2]!; }
   get y1(): number { return this.c[this.o + 3]!; }
-}
-
-class PackedLine extends PackedSegment implements Line {
-  get kind(): 'line' { return 'line'; }
-}
-
-class PackedQuad extends PackedSegment implements Quad {
-  get kind(): 'quad' { return 'quad'; }
-  get x2(): number { return this.c[this.o + 4]!; }
-  get y2(): number { return this.c[this.o + 5]!; }
-}
-
-class PackedCubic extends PackedSegment implements Cubic {
-  get kind(): 'cubic' { return 'cubic'; }
   get x2(): number { return this.c[this.o + 4]!; }
   get y2(): number { return this.c[this.o + 5]!; }
   get x3(): number { return this.c[this.o + 6]!; }
   get y3(): number { return this.c[this.o + 7]!; }
-}
-
-class PackedArc extends PackedSegment implements Arc {
-  get kind(): 'arc' { return 'arc'; }
   get cx(): number { return this.c[this.o + 4]!; }
   get cy(): number { return this.c[this.o + 5]!; }
   get ux(): number { return this.c[this.o + 6]!; }
@@ -59,28 +56,18 @@ class PackedArc extends PackedSegment implements Arc {
   get sweep(): number { return this.c[this.o + 11]!; }
 }
 
-/** The segment of `kind` whose coordinates are at c[o…] (see the layout above), with the span [spanStart,
- *  spanEnd); c must not change after. */
-export function makePackedSegment(kind: Segment['kind'], c: Float64Array, o: number, spanStart: number, spanEnd: number): Segment {
-  switch (kind) {
-    case 'line': return new PackedLine(c, o, spanStart, spanEnd);
-    case 'quad': return new PackedQuad(c, o, spanStart, spanEnd);
-    case 'cubic': return new PackedCubic(c, o, spanStart, spanEnd);
-    case 'arc': return new PackedArc(c, o, spanStart, spanEnd);
-  }
-}
-
 /**
- * One packed segment of each kind, kept for the life of the process for its layout (keepShape.ts):
- * without them, a full collection after an analysis's segments became garbage took the optimised code
- * of every function that reads segments (measures, bounds, pieces, hull), and the next analysis ran
- * unoptimised until the compiler caught up (~10 % of the steady state on 1e5 loose DXF entities).
+ * One segment view kept for the life of the process for its layout (keepShape.ts): without it, a full
+ * collection after an analysis's segments became garbage took the optimised code of every function that
+ * reads segments (measures, bounds, pieces, hull), and the next analysis ran unoptimised until the
+ * compiler caught up (~10 % of the steady state on 1e5 loose DXF entities, with the packed segment
+ * objects of that time).
  */
-for (const kind of ['line', 'quad', 'cubic', 'arc'] as const) keepShape(makePackedSegment(kind, new Float64Array(12), 0, 0, 0));
+keepShape(new SegmentView());
 
-/** The same segment with another span (a packed one shares its coordinates). */
+/** The same segment with another span (a stored one shares its coordinates). */
 export function withSpan(s: Segment, span: SourceSpan): Segment {
-  return s instanceof PackedSegment ? makePackedSegment(s.kind, s.c, s.o, span.start, span.end) : { ...s, span };
+  return s instanceof SegmentView ? new SegmentView(s.kind, s.c, s.o, span.start, span.end) as unknown as Segment : { ...s, span };
 }
 
 /** Kind codes of a SegmentStore, by position in Segment['kind'] order. */
@@ -90,11 +77,10 @@ const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
 /**
  * Segments kept as numbers: for each its kind, the chunk and offset of its coordinates (layout above)
  * and its span's two offsets, in typed arrays. A reader writes a whole drawing here and makes no
- * object per segment; `makeSegment` makes one (a packed segment) when asked for, and SegmentView
- * reads one in place. A million segment objects that all outlive the reading cost every young-
- * generation collection that copies them: ~20 % of analysing a 1e6-segment path (DEVELOPERS.md).
- * Coordinates go to chunks that are never moved, each twice the last up to MAX_CHUNK numbers, the
- * first sized by the caller's estimate, so a small drawing holds little and a huge one no huge copy.
+ * object per segment; `makeSegment` makes one when asked for, and `load` points a view at one (the
+ * objects cost ~20 % of analysing a 1e6-segment path, DEVELOPERS.md). Coordinates go to chunks that
+ * are never moved, each twice the last up to MAX_CHUNK numbers, the first sized by the caller's
+ * estimate, so a small drawing holds little and a huge one no huge copy.
  */
 export class SegmentStore implements SegmentSink<void> {
   /** The chunk `reserve` last returned an offset into. */
@@ -195,9 +181,9 @@ export class SegmentStore implements SegmentSink<void> {
     this.record(ARC, o, spanStart, spanEnd);
   }
 
-  /** Segment i as an object of its own (a packed segment). */
+  /** Segment i as an object of its own. */
   makeSegment(i: number): Segment {
-    return makePackedSegment(KIND_NAMES[this.kinds[i]!]!, this.chunks[this.chunkOf[i]!]!, this.offsets[i]!, this.spanStarts[i]!, this.spanEnds[i]!);
+    return new SegmentView(KIND_NAMES[this.kinds[i]!]!, this.chunks[this.chunkOf[i]!]!, this.offsets[i]!, this.spanStarts[i]!, this.spanEnds[i]!) as unknown as Segment;
   }
 
   /** Points `view` at segment i; returns it. */
@@ -215,36 +201,6 @@ export class SegmentStore implements SegmentSink<void> {
     out[at] = this.spanStarts[i]!;
     out[at + 1] = this.spanEnds[i]!;
   }
-}
-
-/**
- * One stored segment read in place, for loops that look at each segment once and keep nothing of it:
- * the same fields as a packed segment of its kind (a field of another kind reads a meaningless number),
- * pointed at another segment by `SegmentStore.load`.
- */
-export class SegmentView {
-  kind: Segment['kind'] = 'line';
-  c: Float64Array = new Float64Array(0);
-  o = 0;
-  spanStart = 0;
-  spanEnd = 0;
-  get span(): SourceSpan { return { start: this.spanStart, end: this.spanEnd }; }
-  get x0(): number { return this.c[this.o]!; }
-  get y0(): number { return this.c[this.o + 1]!; }
-  get x1(): number { return this.c[this.o + 2]!; }
-  get y1(): number { return this.c[this.o + 3]!; }
-  get x2(): number { return this.c[this.o + 4]!; }
-  get y2(): number { return this.c[this.o + 5]!; }
-  get x3(): number { return this.c[this.o + 6]!; }
-  get y3(): number { return this.c[this.o + 7]!; }
-  get cx(): number { return this.c[this.o + 4]!; }
-  get cy(): number { return this.c[this.o + 5]!; }
-  get ux(): number { return this.c[this.o + 6]!; }
-  get uy(): number { return this.c[this.o + 7]!; }
-  get vx(): number { return this.c[this.o + 8]!; }
-  get vy(): number { return this.c[this.o + 9]!; }
-  get theta0(): number { return this.c[this.o + 10]!; }
-  get sweep(): number { return this.c[this.o + 11]!; }
 }
 
 /**

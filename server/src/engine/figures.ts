@@ -5,6 +5,7 @@
  * in milliseconds instead of seconds.
  */
 import { withContourShapes } from './geometry/shapes';
+import { getSegmentAt, getSegmentCount, SegmentView } from './model/packedSegment';
 import type { AnalysisResult, Contour, ContourResult, ContourShape, OutlineAnalysis, OutlineContourResult, SourceSpan } from './types';
 
 /** A contour without segments; `segmentSpans` holds each segment's source span as [start, end, start, end, …]. */
@@ -39,25 +40,24 @@ export function toFigures(result: OutlineAnalysis): OutlineFigures {
   };
 }
 
-/** A contour's fields but its segments, and the segments' spans. */
+/** Where toOutline reads the spans of a contour whose segments are stored. */
+const spanView = new SegmentView();
+
+/**
+ * A contour's fields but its segments, and the segments' spans. The fields are copied by name,
+ * passing over the two that hold the segments: reading `segments` of a contour whose segments are
+ * stored would make them.
+ */
 function toOutline(contour: Contour): ContourOutline {
-  const stored = contour.stored;
-  if (stored === undefined) {
-    const { segments, ...outline } = contour;
-    const segmentSpans = new Int32Array(2 * segments.length);
-    segments.forEach((s, i) => {
-      const span = s.span; // a packed segment makes its span on each read
-      segmentSpans[2 * i] = span.start;
-      segmentSpans[2 * i + 1] = span.end;
-    });
-    return { ...outline, segmentSpans };
-  }
-  // Stored segments are not made for this: the fields are copied by name, passing over the two that
-  // hold them (reading `segments` would make them).
   const outline: Record<string, unknown> = {};
   for (const key of Object.keys(contour)) if (key !== 'segments' && key !== 'stored') outline[key] = contour[key as keyof Contour];
-  const segmentSpans = new Int32Array(2 * stored.count);
-  for (let i = 0; i < stored.count; i++) stored.store.writeSpan(stored.first + i, segmentSpans, 2 * i);
+  const count = getSegmentCount(contour);
+  const segmentSpans = new Int32Array(2 * count);
+  for (let i = 0; i < count; i++) {
+    const span = getSegmentAt(contour, i, spanView).span; // made on each read
+    segmentSpans[2 * i] = span.start;
+    segmentSpans[2 * i + 1] = span.end;
+  }
   return { ...(outline as unknown as Omit<ContourOutline, 'segmentSpans'>), segmentSpans };
 }
 

@@ -195,12 +195,6 @@ export class SegmentStore implements SegmentSink<void> {
     view.spanEnd = this.spanEnds[i]!;
     return view;
   }
-
-  /** Segment i's span offsets into out[at], out[at + 1]. */
-  writeSpan(i: number, out: Int32Array, at: number): void {
-    out[at] = this.spanStarts[i]!;
-    out[at + 1] = this.spanEnds[i]!;
-  }
 }
 
 /**

@@ -70,9 +70,9 @@ export function withSpan(s: Segment, span: SourceSpan): Segment {
   return s instanceof SegmentView ? new SegmentView(s.kind, s.c, s.o, span.start, span.end) as unknown as Segment : { ...s, span };
 }
 
-/** Kind codes of a SegmentStore, by position in Segment['kind'] order. */
+/** Kind codes of a SegmentStore (and of `SegmentStore.of`'s kinds), by position in KIND_NAMES. */
+export const SEGMENT_LINE = 0, SEGMENT_QUAD = 1, SEGMENT_CUBIC = 2, SEGMENT_ARC = 3;
 const KIND_NAMES = ['line', 'quad', 'cubic', 'arc'] as const;
-const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
 
 /**
  * Segments kept as numbers: for each its kind, the chunk and offset of its coordinates (layout above)
@@ -102,7 +102,7 @@ export class SegmentStore implements SegmentSink<void> {
 
   /**
    * A store of segments laid out already: all coordinates in `coordinates` (layout above), and per
-   * segment its kind code (0 line, 1 quad, 2 cubic, 3 arc), offset and span. The arrays are taken,
+   * segment its kind code (SEGMENT_LINE …), offset and span. The arrays are taken,
    * not copied; nothing is added to the store after.
    */
   static of(coordinates: Float64Array, kinds: Uint8Array, offsets: Int32Array, spanStarts: Int32Array, spanEnds: Int32Array): SegmentStore {
@@ -156,19 +156,19 @@ export class SegmentStore implements SegmentSink<void> {
   line(x0: number, y0: number, x1: number, y1: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(4), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1;
-    this.record(LINE, o, spanStart, spanEnd);
+    this.record(SEGMENT_LINE, o, spanStart, spanEnd);
   }
 
   quad(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(6), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2;
-    this.record(QUAD, o, spanStart, spanEnd);
+    this.record(SEGMENT_QUAD, o, spanStart, spanEnd);
   }
 
   cubic(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, x3: number, y3: number, spanStart: number, spanEnd: number): void {
     const o = this.reserve(8), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = x2; c[o + 5] = y2; c[o + 6] = x3; c[o + 7] = y3;
-    this.record(CUBIC, o, spanStart, spanEnd);
+    this.record(SEGMENT_CUBIC, o, spanStart, spanEnd);
   }
 
   arc(
@@ -178,7 +178,7 @@ export class SegmentStore implements SegmentSink<void> {
     const o = this.reserve(12), c = this.chunk;
     c[o] = x0; c[o + 1] = y0; c[o + 2] = x1; c[o + 3] = y1; c[o + 4] = cx; c[o + 5] = cy;
     c[o + 6] = ux; c[o + 7] = uy; c[o + 8] = vx; c[o + 9] = vy; c[o + 10] = theta0; c[o + 11] = sweep;
-    this.record(ARC, o, spanStart, spanEnd);
+    this.record(SEGMENT_ARC, o, spanStart, spanEnd);
   }
 
   /** Segment i as an object of its own. */

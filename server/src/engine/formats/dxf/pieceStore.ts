@@ -4,7 +4,7 @@
  * then holds no object per piece or per segment while it is read and chained; the result's segments
  * are written once, packed, in contour order and drawing direction (`getSegmentsInOrder`).
  */
-import { SegmentStore } from '../../model/packedSegment';
+import { SEGMENT_ARC as ARC, SEGMENT_CUBIC as CUBIC, SEGMENT_LINE as LINE, SEGMENT_QUAD as QUAD, SegmentStore } from '../../model/packedSegment';
 import type { Segment, SourceSpan } from '../../types';
 import type { PointGroups } from './entities';
 import type { Affine } from './transform';
@@ -48,8 +48,7 @@ export interface PieceFacts {
   readonly unflaggedPolyline: boolean;
 }
 
-/** Segment kinds in the store (SegmentStore's codes) and their number of coordinates (`Segment` field order after `kind`). */
-const LINE = 0, QUAD = 1, CUBIC = 2, ARC = 3;
+/** Number of coordinates of each segment kind (by SegmentStore's kind codes; `Segment` field order after `kind`). */
 const COORDINATES = [4, 6, 8, 12];
 /** Offset of the end point's x among a segment's coordinates, by kind. */
 const END_AT = [2, 4, 6, 2];

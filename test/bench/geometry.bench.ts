@@ -14,9 +14,9 @@
  * calls at 1e5, one call at 1e6 — paper none at 1e6), then timed: median of 15 runs at 1e4, 9 at 1e5, 3
  * at 1e6 (paper 3 at 1e5, 1 at 1e6). Printed: median times, ours/floor, whole/floor, paper/ours and
  * paper/whole, crossing counts (the contour has none), and the log-log slopes of ours, whole and the
- * floor from 1e4 to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤ 1.1. The machine is
- * noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a run at 1e6; set
- * LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
+ * floor from 1e4 to 1e6 (1 = linear). Targets (issue 3): ours ≤ 2× floor, paper ≥ 3× ours, slope ≤
+ * 1.1. The machine is noisy: compare ratios, not absolute times between runs. Paper takes 10–130 s a
+ * run at 1e6; set LOOPWISE_BENCH_MAX_N=1e5 to stop at 1e5.
  */
 import paper from 'paper';
 import { bench, describe } from 'vitest';

@@ -38,7 +38,7 @@ describe('toFigures', () => {
     expect(Array.from(slim!.contour.segmentSpans)).toEqual(full!.contour.segments.flatMap((s) => [s.span.start, s.span.end]));
   });
 
-  it('copies an SVG path contour whose segments are stored without making them: every other field, and the spans from the store', () => {
+  it('copies an SVG path contour whose segments are stored without making them: every other field, and the spans from the store (an invariant of our own)', () => {
     const text = '<svg xmlns="http://www.w3.org/2000/svg" width="20mm" height="20mm" viewBox="0 0 20 20"><path id="p" d="M0 0 L10 0 Q15 5 10 10 C5 12 2 8 0 10 A5 5 0 0 1 0 0Z M12 12 h2"/></svg>';
     const figures = toFigures(analyze(text, 'svg'));
     const result = analyze(text, 'svg');

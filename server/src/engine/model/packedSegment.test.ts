@@ -53,7 +53,7 @@ describe('packed segments', () => {
     }
   });
 
-  it('make the segments of a stored contour on first read, once, and read them in place the same: field for field, by getSegmentAt', () => {
+  it('make the segments of a stored contour on first read, once, and read them in place the same: field for field, by getSegmentAt (an invariant of our own)', () => {
     const store = new SegmentStore(8);
     fourOf(store, [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
     fourOf(store, [-1, -2, -3, -4, -5, -6, -7, -8, -9, -10, -11, -12]);

@@ -6,6 +6,9 @@
  * before it is timed (for 1.5 s or 100 calls at 1e4, 3 s or 20 calls at 1e5, one call at 1e6 — dxf-parser
  * none at 1e6, where one call takes ~3 GB): median of 15 runs at 1e4, 5 at 1e5, 1 run at 1e6:
  * - floor: a bare group tokenizer with number conversion (what any reader must at least do);
+ * - least: the floor plus the least that any reader must add to hand an editor this file's contours
+ *   and open-contour problems (readLeast: entity starts, end points, a hashed join, one object per
+ *   contour and per problem), a lower bound for ours;
  * - read: our readDxf (scan, entity records, units, duplicates, pieces, chaining, contours, close fixes);
  * - ours: `analyzeOutlines()`, read + measures + geometry (intersections, nesting) + all checks:
  *   what the language server publishes the problems from;
@@ -13,8 +16,9 @@
  *   publishing, reported by the CLI);
  * (read, ours and whole from the engine bundled as the server and the CLI run it: shippedEngine.ts)
  * - dxf-parser: its parseSync alone (no positions, no geometry).
- * Printed: times, read/floor, ours/floor (target ≤ 2) and whole/floor, dxf-parser/ours (target > 1) and
- * dxf-parser/whole.
+ * Printed: times, least/floor, read/floor, ours/floor (target ≤ 2) and whole/floor, ours/least,
+ * dxf-parser/ours (target > 1) and dxf-parser/whole. The least reader must find as many contours as
+ * ours, or the run stops.
  * Peak RSS at 1e6 (target ≤ 1 GB) is measured in a child process that only reads the file and runs
  * analyze once (dxfPeakRss.ts, bundled with esbuild), since this process also holds dxf-parser's
  * objects. The machine is noisy: compare ratios of one run, not absolute times between runs.
@@ -28,7 +32,7 @@ import { fileURLToPath } from 'node:url';
 import DxfParser from 'dxf-parser';
 import { buildSync } from 'esbuild';
 import { bench, describe } from 'vitest';
-import { makeLooseDxf, tokenizeFloor } from './looseDxf';
+import { makeLooseDxf, readLeast, tokenizeFloor } from './looseDxf';
 import { analyze, analyzeOutlines, DEFAULT_OPTIONS, readDxf } from './shippedEngine';
 import { fmt, timeSteady } from './timing';
 
@@ -48,17 +52,19 @@ for (const n of sizes) {
   // Each contender returns a count, not its result: a kept result (hundreds of MB at 1e6) would be
   // live through the next call and the next contender's, and slow their collections.
   const fl = timeSteady(runs, () => tokenizeFloor(text), warmMs, warmCalls);
+  const ls = timeSteady(runs, () => readLeast(text).contours, warmMs, warmCalls);
   const rd = timeSteady(runs, () => read(text).contours.length, warmMs, warmCalls);
+  if (ls.value !== rd.value) throw new Error(`the least reader found ${ls.value} contours, ours ${rd.value}`);
   const us = timeSteady(runs, () => analyzeOutlines(text, 'dxf').findings.length, warmMs, warmCalls);
   const wh = timeSteady(runs, () => analyze(text, 'dxf').findings.length, warmMs, warmCalls);
   // dxf-parser takes ~3 GB at 1e6: timed there once, with no warm-up call.
   const parse = () => new DxfParser().parseSync(text)?.entities.length;
   const dp = timeSteady(runs, parse, warmMs, n >= 1e6 ? 0 : warmCalls);
   console.log(
-    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, read ${fmt(rd.ms)}, ours ${fmt(us.ms)}, whole ${fmt(wh.ms)}, dxf-parser ${fmt(dp.ms)}` +
-      ` | read/floor ${(rd.ms / fl.ms).toFixed(2)}, ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), whole/floor ${(wh.ms / fl.ms).toFixed(2)}` +
-      `, dxf-parser/ours ${(dp.ms / us.ms).toFixed(2)} (target > 1), dxf-parser/whole ${(dp.ms / wh.ms).toFixed(2)}` +
-      ` | warm-up calls ${fl.warmUps}/${rd.warmUps}/${us.warmUps}/${wh.warmUps}/${dp.warmUps}`,
+    `[dxf.bench] n=${n.toExponential(0)} (${(text.length / 2 ** 20).toFixed(1)} MB) floor ${fmt(fl.ms)}, least ${fmt(ls.ms)}, read ${fmt(rd.ms)}, ours ${fmt(us.ms)}, whole ${fmt(wh.ms)}, dxf-parser ${fmt(dp.ms)}` +
+      ` | least/floor ${(ls.ms / fl.ms).toFixed(2)}, read/floor ${(rd.ms / fl.ms).toFixed(2)}, ours/floor ${(us.ms / fl.ms).toFixed(2)} (target ≤ 2), whole/floor ${(wh.ms / fl.ms).toFixed(2)}` +
+      `, ours/least ${(us.ms / ls.ms).toFixed(2)}, dxf-parser/ours ${(dp.ms / us.ms).toFixed(2)} (target > 1), dxf-parser/whole ${(dp.ms / wh.ms).toFixed(2)}` +
+      ` | warm-up calls ${fl.warmUps}/${ls.warmUps}/${rd.warmUps}/${us.warmUps}/${wh.warmUps}/${dp.warmUps}`,
   );
 }
 
@@ -80,6 +86,7 @@ if (maxN >= 1e6) {
 const small = makeLooseDxf(1e4);
 describe('1e4 loose LINE/ARC entities', () => {
   bench('floor: bare group tokenizer with number conversion', () => { tokenizeFloor(small); }, { iterations: 3, time: 0 });
+  bench('least: the floor and the least a reader must add (lower bound)', () => { readLeast(small); }, { iterations: 3, time: 0 });
   bench('loopwise readDxf (scan, entities, chaining)', () => { read(small); }, { iterations: 3, time: 0 });
   bench('ours: loopwise analyzeOutlines (read + geometry + all checks)', () => { analyzeOutlines(small, 'dxf'); }, { iterations: 3, time: 0 });
   bench('whole: loopwise analyze (and roundness and hull)', () => { analyze(small, 'dxf'); }, { iterations: 3, time: 0 });

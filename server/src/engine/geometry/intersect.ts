@@ -741,14 +741,14 @@ export function findIntersections(contours: readonly Contour[], options: Interse
   const across = options.acrossContours ?? true;
   const within = options.withinContours ?? true;
   const reuse = options.reuseBuffers ?? false;
-  const provisional = buildPieces(contours, 0, reuse);
+  const provisional = buildPieces(contours, 0, { reuse });
   const size = getSize(provisional);
   const eps = Math.max(RELATIVE_POINT_TOLERANCE * size, Number.MIN_VALUE);
   // Rebuild only when some segment or closing gap is within eps (it is then dropped as a point).
   let P = provisional;
   if (provisional.minKeptExtent <= eps) {
     if (reuse) releasePieces(provisional);
-    P = buildPieces(contours, eps, reuse);
+    P = buildPieces(contours, eps, { reuse });
   }
   const col = new Collector(P, eps);
   const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps };

@@ -100,7 +100,7 @@ function takeSpare(capacity: number): { buf: Float64Array; contourOf: Int32Array
   return s && s.contourOf.length >= capacity && s.contourOf.length <= 4 * capacity + 1024 ? s : null;
 }
 
-/** Hands the buffers of pieces no longer used to the next `buildPieces(…, reuse = true)`. */
+/** Hands the buffers of pieces no longer used to the next `buildPieces(…, { reuse: true })`. */
 export function releasePieces(P: Pieces): void {
   spare = { buf: new Float64Array(P.buf.buffer), contourOf: new Int32Array(P.contourOf.buffer) };
 }
@@ -353,13 +353,21 @@ export function writeSegmentPieces(s: Segment): number {
 /** The segment buildPieces looks at, for a contour whose segments are stored. */
 const pieceView = new SegmentView();
 
+/** How `buildPieces` works beside its inputs. */
+export interface BuildPiecesOptions {
+  /** Take the spare buffers of pieces handed back (`releasePieces`) when they fit. */
+  readonly reuse?: boolean;
+  /** Give every contour, open ones too, its implicit closing line (for winding numbers). */
+  readonly closeAll?: boolean;
+}
+
 /**
  * Cuts the contours into monotone pieces. Segments whose control points all lie within
  * `pointTol` of their start are left out (zero-length segments are their own check); a closed
  * contour whose last end point is not its start gets an implicit closing line (segment −1), and with
- * `closeAll` so does every other contour (for winding numbers).
+ * `closeAll` so does every other contour.
  */
-export function buildPieces(contours: readonly Contour[], pointTol: number, reuse = false, closeAll = false): Pieces {
+export function buildPieces(contours: readonly Contour[], pointTol: number, { reuse = false, closeAll = false }: BuildPiecesOptions = {}): Pieces {
   let segments = 0;
   for (let ci = 0; ci < contours.length; ci++) segments += getSegmentCount(contours[ci]!);
   const w = new PieceWriter(segments + (segments >> 1) + contours.length, reuse);

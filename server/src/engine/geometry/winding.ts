@@ -30,11 +30,11 @@ export interface WindingTester {
 const MAX_WINDING_BISECTION_STEPS = 80;
 
 export function createWindingTester(contour: Contour): WindingTester {
-  const probe = buildPieces([contour], 0, false, true);
+  const probe = buildPieces([contour], 0, { closeAll: true });
   const [a, b, c, d] = probe.bbox;
   const eps = probe.count > 0 ? RELATIVE_POINT_TOLERANCE * getVectorLength(c - a, d - b) : 0;
   // The pieces at tolerance eps differ from the probe only when a kept segment or gap is within eps.
-  const pieces = probe.minKeptExtent > eps ? probe : buildPieces([contour], eps, false, true);
+  const pieces = probe.minKeptExtent > eps ? probe : buildPieces([contour], eps, { closeAll: true });
   const buf = pieces.buf;
   return {
     pieces,

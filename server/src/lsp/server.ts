@@ -70,6 +70,11 @@ export function startServer(connection: Connection, analyser: Analyser): void {
   /** Bumped whenever the settings change, so results computed with older settings are not cached. */
   let generation = 0;
 
+  /** The cached analysis of (uri, version) under this generation's settings: whole, or up to its findings. */
+  function getCached(uri: string, version: number, stage: keyof Run): OutlineFigures | undefined {
+    return cache.get(uri, version, generation) ?? (stage === 'outlines' ? outlineCache.get(uri, version, generation) : undefined);
+  }
+
   /** The run analysing `document` as it is now: the one under way, or a new one. */
   function getRun(document: TextDocument, format: FileFormat): Run {
     const { uri, version } = document;
@@ -120,7 +125,7 @@ export function startServer(connection: Connection, analyser: Analyser): void {
     const format = getFormatForUri(document.uri);
     if (!format) return undefined;
     const { uri, version } = document;
-    const cached = cache.get(uri, version, generation) ?? (stage === 'outlines' ? outlineCache.get(uri, version, generation) : undefined);
+    const cached = getCached(uri, version, stage);
     if (cached) return cached;
     // Cancelling one request does not stop a run that others (validation) may be waiting for.
     const result = await getRun(document, format)[stage];
@@ -244,7 +249,7 @@ export function startServer(connection: Connection, analyser: Analyser): void {
         await queue.whenIdle();
         let findings = 0;
         for (const document of open) {
-          const result = cache.get(document.uri, document.version, generation) ?? outlineCache.get(document.uri, document.version, generation);
+          const result = getCached(document.uri, document.version, 'outlines');
           findings += result?.findings.length ?? 0;
         }
         return { documents: open.length, findings };

@@ -286,10 +286,6 @@ interface ChainEnd {
 /** Where a contour's start and end points are: x, y of the start, then of the end. */
 type Gap = Float64Array;
 
-function getGapMm(gap: Gap): number {
-  return getVectorLength(gap[2] - gap[0], gap[3] - gap[1]);
-}
-
 /** Where buildContours reads each contour's start point. */
 const startView = new SegmentView();
 
@@ -356,11 +352,12 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
     gap[1] = ends[s + 1];
     gap[2] = ends[e];
     gap[3] = ends[e + 1];
-    if (!(getGapMm(gap) <= fixMaxGapMm)) continue;
+    const gapMm = getVectorLength(gap[2] - gap[0], gap[3] - gap[1]);
+    if (!(gapMm <= fixMaxGapMm)) continue;
     const firstEnd = { piece: getFixPiece(store, first), reversed: firstReversed };
     const closeFix = single
-      ? getPolylineCloseFix(text, firstEnd.piece, gap, eol)
-      : getMoveEndFix(text, firstEnd, { piece: getFixPiece(store, open[lastK]), reversed: lastReversed }, gap, units);
+      ? getPolylineCloseFix(text, firstEnd.piece, gapMm, eol)
+      : getMoveEndFix(text, firstEnd, { piece: getFixPiece(store, open[lastK]), reversed: lastReversed }, gap, gapMm, units);
     if (closeFix) fixes.set(k, closeFix);
   }
 
@@ -413,7 +410,7 @@ function buildContours(text: string, store: PieceStore, units: UnitsInfo, eol: s
  * segment runs from the last-but-one vertex to the first (the end moves onto the start; when the last
  * vertex repeats the first, nothing else changes).
  */
-function getPolylineCloseFix(text: string, p: FixPiece, gap: Gap, eol: string): Fix | undefined {
+function getPolylineCloseFix(text: string, p: FixPiece, gapMm: number, eol: string): Fix | undefined {
   const info = p.polyline;
   if (!info || info.vertexCount < 3) return undefined;
   const edits: TextEdit[] = [];
@@ -430,15 +427,17 @@ function getPolylineCloseFix(text: string, p: FixPiece, gap: Gap, eol: string): 
   if (info.countSpan) edits.push(replaceValue(text, info.countSpan.start, info.countSpan.end, String(info.vertexCount - 1)));
   edits.push({ span: info.lastVertexSpan, newText: '' });
   edits.sort((a, b) => a.span.start - b.span.start);
-  const gapMm = getGapMm(gap);
   return {
     title: fillTemplate('Close the {entity}: drop its last vertex ({gapMm} mm from the first) and set the closed flag', { entity: p.element, gapMm }),
     edits,
   };
 }
 
-/** Near-closed chain: move one free end onto the other, editing only that point's value lines. */
-function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, gap: Gap, units: UnitsInfo): Fix | undefined {
+/**
+ * Near-closed chain: move one free end onto the other, editing only that point's value lines. `gap`
+ * holds the chain's start and end points (mm), `gapMm` their distance.
+ */
+function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, gap: Gap, gapMm: number, units: UnitsInfo): Fix | undefined {
   /** The value spans of a chain end's point, looked up in its entity's text. */
   const refAt = (end: ChainEnd, atPieceEnd: boolean): PointRef | undefined => {
     const which = atPieceEnd ? end.piece.endEdit : end.piece.startEdit;
@@ -465,7 +464,6 @@ function getMoveEndFix(text: string, first: ChainEnd, last: ChainEnd, gap: Gap, 
   } else {
     return undefined;
   }
-  const gapMm = getVectorLength(ex - sx, ey - sy);
   return {
     title: `Move the end of the ${element} onto the other end of the contour (${formatNumber(gapMm)} mm away)`,
     edits: [replaceValue(text, moved.xs, moved.xe, to[0]), replaceValue(text, moved.ys, moved.ye, to[1])],

@@ -219,6 +219,13 @@ describe('readSvg: transforms', () => {
     expect(problems[0]).toMatchObject({ messageId: 'value', data: { attribute: 'transform' } });
     expect(at(text, problems[0]!.span)).toBe('rotate(1,2)');
   });
+
+  it('reports an invalid transform of a path once, and only when the path draws something', () => {
+    const text = mmDoc('<path d="M0 0H2V2Z" transform="scale(1,2,3)"/><path d="" transform="skewX()"/>');
+    const { contours, problems } = read(text);
+    expect(contours).toHaveLength(1);
+    expect(problems.map((p) => at(text, p.span))).toEqual(['scale(1,2,3)']);
+  });
 });
 
 describe('readSvg: what is drawn (SVG 2 Rendering, Structural)', () => {

@@ -56,6 +56,9 @@ interface WalkState {
 
 const SVG_HREF_NAMES = ['href', 'xlink:href'] as const;
 
+/** The `reportError` of a valid or absent `transform`. */
+const NOTHING_TO_REPORT = (): void => {};
+
 /** display from the attribute, overridden by an inline style declaration (CSS cascade: style wins). */
 function isDisplayNone(el: SvgElement): boolean {
   let display = el.attributes.get('display')?.value.trim();
@@ -121,22 +124,24 @@ class SvgReader {
 
   // ── viewports and transforms ────────────────────────────────────────────────────────────────
 
-  /** The element's `transform` attribute; invalid lists are reported and ignored (as browsers do). */
-  private getTransform(el: SvgElement, report = true): Matrix | null {
+  /**
+   * The element's CTM from its parent's `matrix` and its `transform` attribute. An invalid list is
+   * ignored (as browsers do) and reported, at once or, with `report: false`, by calling the returned
+   * `reportError` (a path reports it only when it draws something).
+   */
+  private applyTransform(el: SvgElement, matrix: Matrix, report = true): { matrix: Matrix; reportError: () => void } {
     const attr = el.attributes.get('transform');
-    if (!attr) return null;
+    if (!attr) return { matrix, reportError: NOTHING_TO_REPORT };
     const result = parseTransformList(attr.value);
-    if ('error' in result) {
-      if (report) this.report('value', attr.span, { attribute: 'transform', detail: result.error });
-      return null;
-    }
-    return result.matrix;
+    if (!('error' in result)) return { matrix: multiplyMatrices(matrix, result.matrix), reportError: NOTHING_TO_REPORT };
+    const reportError = () => this.report('value', attr.span, { attribute: 'transform', detail: result.error });
+    if (report) reportError();
+    return { matrix, reportError };
   }
 
-  /** The element's CTM; `report: false` leaves an invalid `transform` unreported (the caller reports it later or not at all). */
-  private withTransform(el: SvgElement, matrix: Matrix, report = true): Matrix {
-    const t = this.getTransform(el, report);
-    return t ? multiplyMatrices(matrix, t) : matrix;
+  /** The element's CTM; an invalid `transform` is reported and ignored. */
+  private withTransform(el: SvgElement, matrix: Matrix): Matrix {
+    return this.applyTransform(el, matrix).matrix;
   }
 
   private readViewBox(el: SvgElement): ViewBox | undefined {
@@ -397,7 +402,7 @@ class SvgReader {
     const base = attr.span.start;
     // Segments are built in final coordinates; an invalid transform is reported below, only for a
     // path that draws something.
-    const matrix = this.withTransform(el, state.matrix, false);
+    const { matrix, reportError } = this.applyTransform(el, state.matrix, false);
     const parsed = parsePathData(value, base, matrix);
     const last = value.length;
     const mapOffset = (o: number) => offsets![Math.min(Math.max(o - base, 0), last)]!;
@@ -406,7 +411,7 @@ class SvgReader {
       : (s: SourceSpan): SourceSpan => s;
     if (parsed.error) this.report('pathData', mapSpan(parsed.error.span), { detail: parsed.error.detail });
     if (parsed.subpaths.length === 0) return;
-    this.getTransform(el);
+    reportError();
     for (const sub of parsed.subpaths) {
       const segments = offsets ? { segments: sub.segments.map((s) => withSpan(s, mapSpan(s.span))) } : { stored: sub.stored };
       const closeFix = sub.closeFix && offsets

@@ -14,7 +14,7 @@ function dxf(entities: (string | number)[][], opts: { insunits?: number; before?
   if (opts.insunits !== undefined) pairs.push(0, 'SECTION', 2, 'HEADER', 9, '$INSUNITS', 70, opts.insunits, 0, 'ENDSEC');
   if (opts.before) pairs.push(...opts.before);
   pairs.push(0, 'SECTION', 2, 'ENTITIES');
-  for (const e of entities) pairs.push(...e);
+  for (const e of entities) for (const v of e) pairs.push(v);
   pairs.push(0, 'ENDSEC', 0, 'EOF');
   return pairs.join('\n') + '\n';
 }
@@ -143,6 +143,43 @@ describe('readDxf: entities', () => {
         const [dx, dy] = deBoor(u0 + t / 2);
         expect(bx).toBeCloseTo(dx, 12);
         expect(by).toBeCloseTo(dy, 12);
+      }
+    }
+  });
+
+  it('reads a cubic B-spline of 20 000 control points into its n − 3 Béziers, which follow de Boor\'s algorithm (from memory)', () => {
+    // Clamped, uniform with a few doubled interior knots; each Bézier piece is one non-empty knot span.
+    const n = 20000, p = 3;
+    const interior = Array.from({ length: n - p - 1 }, (_, i) => 1 + i - (i % 97 === 5 ? 1 : 0));
+    const knots = [0, 0, 0, 0, ...interior, n, n, n, n];
+    const ctrl = Array.from({ length: n }, (_, i) => [i / 10, ((i * 7919) % 1000) / 10]);
+    const e: (string | number)[] = [0, 'SPLINE', 8, 0, 70, 8, 71, p, 72, knots.length, 73, n];
+    for (const k of knots) e.push(40, k);
+    for (const [x, y] of ctrl) e.push(10, x, 20, y, 30, 0);
+    const c = read(dxf([e])).contours[0];
+    const spans = knots.slice(p, n + 1).flatMap((u, i, all) => (i > 0 && all[i - 1] < u ? [[all[i - 1], u]] : []));
+    expect(c.segments).toHaveLength(spans.length);
+    expect(c.segments.every((s) => s.kind === 'cubic')).toBe(true);
+    /** de Boor's algorithm: the point at u in span k (knots[k] ≤ u < knots[k + 1]). */
+    const deBoor = (k: number, u: number) => {
+      const d = Array.from({ length: p + 1 }, (_, j) => [...ctrl[j + k - p]]);
+      for (let r = 1; r <= p; r++) {
+        for (let j = p; j >= r; j--) {
+          const alpha = (u - knots[j + k - p]) / (knots[j + 1 + k - r] - knots[j + k - p]);
+          d[j] = [(1 - alpha) * d[j - 1][0] + alpha * d[j][0], (1 - alpha) * d[j - 1][1] + alpha * d[j][1]];
+        }
+      }
+      return d[p];
+    };
+    for (let piece = 0; piece < spans.length; piece += 331) {
+      const [u0, u1] = spans[piece], s = c.segments[piece];
+      if (s.kind !== 'cubic') throw new Error('cubic expected');
+      const k = knots.lastIndexOf(u0);
+      for (const t of [0, 0.25, 0.6]) {
+        const v = 1 - t;
+        const [x, y] = deBoor(k, u0 + t * (u1 - u0));
+        expect(v ** 3 * s.x0 + 3 * v * v * t * s.x1 + 3 * v * t * t * s.x2 + t ** 3 * s.x3).toBeCloseTo(x, 9);
+        expect(v ** 3 * s.y0 + 3 * v * v * t * s.y1 + 3 * v * t * t * s.y2 + t ** 3 * s.y3).toBeCloseTo(y, 9);
       }
     }
   });

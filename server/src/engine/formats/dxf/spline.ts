@@ -42,20 +42,47 @@ function getMultiplicity(U: readonly number[], u: number): number {
 }
 
 /**
- * Inserts u once (The NURBS Book A5.1 with r = 1). P is flat homogeneous (xw, yw, w).
- * k: the span with U[k] ≤ u < U[k+1]; s: current multiplicity of u.
+ * Raises every distinct knot value in [a, b] to multiplicity ≥ p by inserting it again (Boehm; The
+ * NURBS Book A5.1 with r = 1), in increasing order. P is flat homogeneous (xw, yw, w); returns the new
+ * points and knots. Inserting u once into the span k (U[k] ≤ u < U[k+1]) where it has multiplicity s
+ * replaces points k−p+1 … k−s by Q_i = α_i·P_i + (1 − α_i)·P_{i−1}, α_i = (u − U_i)/(U_{i+p} − U_i),
+ * and puts the old P_{k−s} after them. Each insertion changes only the points just left of where it
+ * inserts, so the points and knots are moved from the input to the output as the insertions reach them,
+ * and an insertion costs O(p), not a copy of every point: O((n + insertions)·p) in all.
  */
-function insertKnot(P: number[], U: number[], p: number, u: number, k: number, s: number): [number[], number[]] {
-  const n = P.length / 3;
-  const Q = new Array<number>((n + 1) * 3);
-  for (let i = 0; i <= k - p; i++) for (let j = 0; j < 3; j++) Q[3 * i + j] = P[3 * i + j];
-  for (let i = k - s; i < n; i++) for (let j = 0; j < 3; j++) Q[3 * (i + 1) + j] = P[3 * i + j];
-  for (let i = k - p + 1; i <= k - s; i++) {
-    const alpha = (u - U[i]) / (U[i + p] - U[i]);
-    for (let j = 0; j < 3; j++) Q[3 * i + j] = alpha * P[3 * i + j] + (1 - alpha) * P[3 * (i - 1) + j];
+function raiseKnots(P: readonly number[], U: readonly number[], p: number, a: number, b: number): { P: number[]; U: number[] } {
+  const outP: number[] = [], outU: number[] = [];
+  let nextP = 0, nextU = 0;
+  /** Knot j of the knot vector as it stands: moved ones, then the input's not yet moved. */
+  const knotAt = (j: number) => (j < outU.length ? outU[j] : U[nextU + j - outU.length]);
+  let last = Number.NaN;
+  for (let at = 0; at < U.length; at++) {
+    const u = U[at];
+    if (u === last || u < a || u > b) continue;
+    last = u;
+    // The span of u: k is the last knot ≤ u, and some knot must follow it (true of every u ≤ b whose
+    // multiplicity is below p + 1, the only ones inserted).
+    while (nextU < U.length && U[nextU] <= u) outU.push(U[nextU++]);
+    let s = 0;
+    while (s < outU.length && outU[outU.length - 1 - s] === u) s++;
+    if (s >= p || nextU === U.length) continue;
+    for (; s < p; s++) {
+      const k = outU.length - 1;
+      // Points 0 … k − s are needed in the output; those after it stay the input's.
+      for (; outP.length < 3 * (k - s + 1); nextP++) outP.push(P[3 * nextP], P[3 * nextP + 1], P[3 * nextP + 2]);
+      const o = 3 * (k - s);
+      const moved = [outP[o], outP[o + 1], outP[o + 2]];
+      for (let i = k - s; i >= k - p + 1; i--) {
+        const alpha = (u - knotAt(i)) / (knotAt(i + p) - knotAt(i));
+        for (let j = 0; j < 3; j++) outP[3 * i + j] = alpha * outP[3 * i + j] + (1 - alpha) * outP[3 * (i - 1) + j];
+      }
+      outP.splice(o + 3, 0, ...moved);
+      outU.push(u);
+    }
   }
-  const V = [...U.slice(0, k + 1), u, ...U.slice(k + 1)];
-  return [Q, V];
+  for (; 3 * nextP < P.length; nextP++) outP.push(P[3 * nextP], P[3 * nextP + 1], P[3 * nextP + 2]);
+  for (; nextU < U.length; nextU++) outU.push(U[nextU]);
+  return { P: outP, U: outU };
 }
 
 /** Point and derivative of a homogeneous Bézier (flat xw, yw, w; degree p) at t, in Euclidean form. */
@@ -163,25 +190,16 @@ export function getSplineSegments(sp: SplineInput, tolerance: number, span: Sour
     if (!Number.isFinite(sp.ctrl[3 * i]) || !Number.isFinite(sp.ctrl[3 * i + 1])) return { ok: false, detail: 'SPLINE control point is not a number' };
   }
   const rational = sp.weights.some((w) => w !== sp.weights[0]);
-  let P: number[] = [];
+  const homogeneous: number[] = [];
   for (let i = 0; i < n; i++) {
     const w = rational ? sp.weights[i] : 1;
-    P.push(sp.ctrl[3 * i] * w, sp.ctrl[3 * i + 1] * w, w);
+    homogeneous.push(sp.ctrl[3 * i] * w, sp.ctrl[3 * i + 1] * w, w);
   }
-  let U = [...sp.knots];
-  const a = U[p], b = U[n];
+  const a = sp.knots[p], b = sp.knots[n];
   if (!(a < b)) return { ok: false, detail: 'SPLINE knot vector spans no parameter range' };
-  const clamped = getMultiplicity(U.slice(0, p + 1), a) === p + 1 && getMultiplicity(U.slice(n), b) === p + 1;
-
-  // Raise every distinct knot in [a, b] to multiplicity ≥ p.
-  const values = [...new Set(U.filter((u) => u >= a && u <= b))];
-  for (const u of values) {
-    for (let s = getMultiplicity(U, u); s < p; s++) {
-      let k = U.length - 1;
-      while (k > 0 && !(U[k] <= u && u < U[k + 1])) k--;
-      [P, U] = insertKnot(P, U, p, u, k, s);
-    }
-  }
+  const clamped = getMultiplicity(sp.knots.slice(0, p + 1), a) === p + 1 && getMultiplicity(sp.knots.slice(n), b) === p + 1;
+  // Every distinct knot in [a, b] at multiplicity ≥ p: the pieces between them are Bézier curves.
+  const { P, U } = raiseKnots(homogeneous, sp.knots, p, a, b);
 
   const segments: Segment[] = [];
   let capped = false;

@@ -10,6 +10,7 @@ import notAnalysed from './not-analysed';
 import openContour from './open-contour';
 import outOfPlane from './out-of-plane';
 import parseError from './parse-error';
+import searchStopped from './search-stopped';
 import selfCrossing from './self-crossing';
 import selfTouch from './self-touch';
 import unitsAssumed from './units-assumed';
@@ -19,7 +20,7 @@ export type { CheckContext, CheckDefinition } from './defineCheck';
 
 /** Every check, in the order they run. */
 export const checks: readonly CheckDefinition[] = [parseError, unitsAssumed, openContour, nearClosed, zeroLengthSegment,
-  notAnalysed, outOfPlane, branching, duplicateEntity, selfCrossing, selfTouch, contoursCross, doubleCut, degenerateArea];
+  notAnalysed, outOfPlane, branching, duplicateEntity, selfCrossing, selfTouch, contoursCross, doubleCut, searchStopped, degenerateArea];
 
 const byId = new Map(checks.map((c) => [c.id, c]));
 

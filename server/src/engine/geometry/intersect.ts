@@ -47,6 +47,17 @@ export const RELATIVE_POINT_TOLERANCE = 1e-9;
  *  Same idea and order of magnitude as paper.js `addCurveIntersections` (`calls >= 4096`). */
 export const MAX_SUBDIVISION_PAIRS = 4096;
 
+/**
+ * Limits of one search, so that a broken or hostile file (thousands of copies of one line, every line
+ * through one point) cannot take all memory and time: candidate pairs of pieces whose boxes meet, and
+ * meetings found (crossings, touches and runs of overlap, before merging). A wavy outline of a million
+ * lines, arcs or cubics gives one candidate pair per piece and no meeting (measured), so real files
+ * stay far below both; a search that reaches one stops, keeps what it found and says so (`stopped`;
+ * the `search-stopped` check). Source: common practice, no source.
+ */
+export const MAX_PIECE_PAIRS = 5_000_000;
+export const MAX_MEETINGS = 100_000;
+
 /** Newton steps when polishing a subdivision hit; quadratic convergence needs ~3 from a 1e-9 box. */
 const MAX_NEWTON_STEPS = 8;
 
@@ -95,6 +106,18 @@ export interface IntersectionResult {
   readonly unresolved: readonly UnresolvedPair[];
   /** The "same point" tolerance used (mm). */
   readonly eps: number;
+  /**
+   * Null when every pair of pieces was examined; otherwise the limit that stopped the search (more
+   * candidate pairs than MAX_PIECE_PAIRS, or more meetings than MAX_MEETINGS), and there may be
+   * meetings that are not listed.
+   */
+  readonly stopped: SearchStop | null;
+}
+
+/** The limit that stopped an intersection search. */
+export interface SearchStop {
+  readonly reason: 'pairs' | 'meetings';
+  readonly limit: number;
 }
 
 export interface IntersectOptions {
@@ -751,7 +774,7 @@ export function findIntersections(contours: readonly Contour[], options: Interse
     P = buildPieces(contours, eps, { reuse });
   }
   const col = new Collector(P, eps);
-  const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps };
+  const result = { intersections: [] as Intersection[], overlaps: [] as Overlap[], unresolved: [] as UnresolvedPair[], eps, stopped: null as SearchStop | null };
   if (P.count < 2) {
     if (reuse) releasePieces(P);
     return result;
@@ -769,9 +792,14 @@ export function findIntersections(contours: readonly Contour[], options: Interse
     }
     return boxesOverlapWithArea(buf, i, j);
   };
-  const pairs = findPiecePairs(P, eps, keep, options.isCancelled);
+  const pairs = findPiecePairs(P, eps, keep, { isCancelled: options.isCancelled, maxPairs: MAX_PIECE_PAIRS });
+  if (pairs.length / 2 > MAX_PIECE_PAIRS) result.stopped = { reason: 'pairs', limit: MAX_PIECE_PAIRS };
   for (let p = 0; 2 * p < pairs.length; p++) {
     if (p % NARROW_POLL_EVERY === NARROW_POLL_EVERY - 1 && options.isCancelled?.()) break;
+    if (col.hits.length + col.overlaps.length > MAX_MEETINGS) {
+      result.stopped ??= { reason: 'meetings', limit: MAX_MEETINGS };
+      break;
+    }
     narrow(col, pairs[2 * p]!, pairs[2 * p + 1]!);
   }
 

@@ -63,11 +63,23 @@ describe('findPiecePairs against a brute-force reference (all pairs, closed-box 
     expect(Array.from(findPiecePairs(same, 0, () => true))).toEqual(bruteForcePairs(same, 0));
   });
 
+  it('stops soon after finding more than maxPairs pairs, and finds all n(n − 1)/2 pairs of n equal pieces when allowed (closed form)', () => {
+    for (const count of [60, 3000]) {
+      // Every piece lies on every other: count·(count − 1)/2 pairs, 1770 and ~4.5 million.
+      const same = buildPieces(Array.from({ length: count }, () => contourFromSegments([line(0, 0, 1, 0)], false)), 0);
+      const got = findPiecePairs(same, 0, () => true, { maxPairs: 500 });
+      expect(got.length / 2).toBeGreaterThan(500);
+      expect(got.length / 2).toBeLessThan(500 + 64 * 64);
+      for (let k = 0; k < got.length; k += 2) expect(got[k]).toBeLessThan(got[k + 1]!);
+      expect(findPiecePairs(same, 0, () => true, { maxPairs: count * count }).length / 2).toBe((count * (count - 1)) / 2);
+    }
+  });
+
   it('stops when cancelled and returns only meeting pairs found so far', () => {
     const contours = Array.from({ length: 6000 }, (_, k) => contourFromSegments([line(k, 0, k + 1, 0)], false));
     const P = buildPieces(contours, 0);
     let polls = 0;
-    const got = findPiecePairs(P, 0, () => true, () => ++polls >= 1);
+    const got = findPiecePairs(P, 0, () => true, { isCancelled: () => ++polls >= 1 });
     expect(polls).toBe(1);
     expect(got.length / 2).toBeLessThan(P.count - 1);
     const all = new Set<string>();

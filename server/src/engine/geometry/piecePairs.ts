@@ -146,13 +146,24 @@ function getMonotoneRun(buf: Float64Array, s: number, end: number): number {
   return 4 * (i - s) + (dx < 0 ? 1 : 0) + (dy < 0 ? 2 : 0);
 }
 
+/** How findPiecePairs may stop before it has found every pair. */
+export interface PiecePairLimits {
+  /** Polled during the search; once it returns true the search stops. */
+  readonly isCancelled?: (() => boolean) | undefined;
+  /**
+   * The search stops soon after it has found more than this many pairs (within the two leaves it is
+   * joining), so more than `maxPairs` pairs returned means there may be others.
+   */
+  readonly maxPairs?: number;
+}
+
 /** findPiecePairs for a few pieces: every pair, in order. */
-function findPairsDirectly(P: Pieces, pad: number, keep: (i: number, j: number) => boolean): Int32Array {
+function findPairsDirectly(P: Pieces, pad: number, keep: (i: number, j: number) => boolean, maxPairs: number): Int32Array {
   const n = P.count;
   const box = new Float64Array(4 * n);
   writePieceBoxes(P.buf, pad, 0, n, box);
   const pairs: number[] = [];
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < n && pairs.length <= 2 * maxPairs; i++) {
     for (let j = i + 1; j < n; j++) {
       if (box[4 * i + 2]! < box[4 * j]! || box[4 * i + 3]! < box[4 * j + 1]! || box[4 * i]! > box[4 * j + 2]! || box[4 * i + 1]! > box[4 * j + 3]!) continue;
       if (keep(i, j)) pairs.push(i, j);
@@ -163,15 +174,16 @@ function findPairsDirectly(P: Pieces, pad: number, keep: (i: number, j: number) 
 
 /**
  * All pairs i < j of pieces whose boxes, each grown by `pad` on every side, meet (closed boxes) and
- * that `keep(i, j)` accepts, as [i0, j0, i1, j1, …] sorted by i then j. When `isCancelled` returns
- * true the search stops and the pairs found so far are returned.
+ * that `keep(i, j)` accepts, as [i0, j0, i1, j1, …] sorted by i then j. When `limits.isCancelled`
+ * returns true, or more than `limits.maxPairs` pairs are found, the search stops and the pairs found
+ * so far are returned.
  */
 export function findPiecePairs(
-  P: Pieces, pad: number, keep: (i: number, j: number) => boolean, isCancelled?: () => boolean,
+  P: Pieces, pad: number, keep: (i: number, j: number) => boolean, { isCancelled, maxPairs = Infinity }: PiecePairLimits = {},
 ): Int32Array {
   const n = P.count;
   const buf = P.buf;
-  if (n <= DIRECT_PIECES) return findPairsDirectly(P, pad, keep);
+  if (n <= DIRECT_PIECES) return findPairsDirectly(P, pad, keep, maxPairs);
   // Leaves: runs of consecutive pieces within one chain, monotone ones (kind 4 + the descending axes)
   // where a long run allows, plain ones (kind 0) of LEAF_PIECES otherwise. A monotone leaf has at
   // least as many pieces as a plain one, so there are at most as many leaves as plain ones alone.
@@ -246,6 +258,7 @@ export function findPiecePairs(
   // Accepted pairs as keys i·n + j (exact: n² < 2^53 for any piece buffer that fits in memory).
   let keys = new Float64Array(64);
   let found = 0;
+  let stopped = false;
   const push = (i: number, j: number) => {
     if (!keep(i, j)) return;
     if (found === keys.length) {
@@ -254,13 +267,13 @@ export function findPiecePairs(
       keys = grown;
     }
     keys[found++] = i * n + j;
+    if (found > maxPairs) stopped = true;
   };
   /** Closed boxes a (in A) and b (in B) meet; written as flatbush's rejection test, negated. */
   const meet = (A: Float64Array, a: number, B: Float64Array, b: number) =>
     !(A[4 * a + 2]! < B[4 * b]! || A[4 * a + 3]! < B[4 * b + 1]! || A[4 * a]! > B[4 * b + 2]! || A[4 * a + 1]! > B[4 * b + 3]!);
 
   let visits = 0;
-  let stopped = false;
   const poll = () => {
     if ((++visits % POLL_EVERY) === 0 && isCancelled?.()) stopped = true;
   };

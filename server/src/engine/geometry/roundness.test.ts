@@ -4,7 +4,7 @@ import { arc, circleArcs, contourFromSegments, contoursFromPathData, ellipseArc,
 import { measureContour } from './measure';
 import { getConvexHull, getPolylineHull } from './hull';
 import type { Contour } from '../types';
-import { findSelfIntersections } from './intersect';
+import { findSelfIntersections, MAX_MEETINGS } from './intersect';
 import { buildChordTree, createOutlineDistance, getLargestInscribedCircle, getMinimumZone, getRoundness, getSmallestEnclosingCircle, getWindingSquaredArea, type SearchPiece } from './roundness';
 
 const polygon = (pts: readonly (readonly [number, number])[]) => contourFromSegments(polygonSegments(pts, false), true);
@@ -73,6 +73,15 @@ describe('roundness check values', () => {
     expect(r.windingSquaredAreaMm2.value).toBeCloseTo(2, 12);
     expect(r.bonnesenBoundMm.value).toBeNull();
     expect(r.minZone.value).toBeNull();
+  });
+
+  it('leaves ∬w² dA undefined when the polygon crosses itself in more places than the search examines (star {999/499}: n(k − 1) = 999·498 crossings, closed form)', () => {
+    // Star polygon {n/k}: each edge crosses 2(k − 1) others, n(k − 1) crossings in all (n, k coprime).
+    const n = 999, k = 499;
+    expect(n * (k - 1)).toBeGreaterThan(MAX_MEETINGS);
+    const r = roundnessOf(Array.from({ length: n }, (_, i) => [Math.cos((2 * Math.PI * k * i) / n), Math.sin((2 * Math.PI * k * i) / n)] as const));
+    expect(r.selfCrossing).toBe(true);
+    expect(r.windingSquaredAreaMm2).toMatchObject({ value: null, reason: expect.stringContaining('more places than the intersection search examines') });
   });
 
   it('gives a square hull area 1, perimeter 4 and convexity 1; an L-shape convexity 3/3.5 (by hand)', () => {

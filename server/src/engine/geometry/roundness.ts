@@ -972,7 +972,10 @@ export function getRoundness(contour: Contour, metrics: ContourMetrics, selfCros
     if (poly.xs.length > MAX_WINDING_INTEGRAL_VERTICES) windingSquared = undef(`the flattened contour has more than ${MAX_WINDING_INTEGRAL_VERTICES} vertices`);
     else {
       const points = Array.from(poly.xs, (x, i): Pt => [x, poly.ys[i]!]);
-      windingSquared = { value: getWindingSquaredArea(points, findSelfIntersections(polylineContour(contour, points)).intersections.map((x) => x.y)) };
+      const crossings = findSelfIntersections(polylineContour(contour, points));
+      windingSquared = crossings.stopped
+        ? undef('the flattened contour meets itself in more places than the intersection search examines')
+        : { value: getWindingSquaredArea(points, crossings.intersections.map((x) => x.y)) };
     }
   }
   const searchPieces = countSearchPieces(poly);

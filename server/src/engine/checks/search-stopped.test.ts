@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_MEETINGS, MAX_PIECE_PAIRS } from '../geometry/intersect';
+import { MAX_WINDING_TESTS } from '../geometry/nesting';
 import searchStopped from './search-stopped';
 import { runCheck as run } from '../../../../test/support/runCheck';
 
@@ -22,4 +23,12 @@ describe('search-stopped', () => {
     const lines = Array.from({ length: n }, (_, k) => `<path d="M${k / 1000} 0L${100 + k / 1000} 100"/>`).join('');
     expect(run(searchStopped, lines)).toEqual([{ messageId: 'pairs', at: 'M0 0L100 100', data: { limit: MAX_PIECE_PAIRS }, related: undefined }]);
   });
+
+  it('reports where the nesting tests stopped on 600 stacked squares (each of the 4 sample points of each square is on each other square: 4·600·599 tests, closed form)', () => {
+    expect(4 * 600 * 599).toBeGreaterThan(MAX_WINDING_TESTS);
+    const found = run(searchStopped, '<rect width="10" height="10"/>'.repeat(600));
+    expect(found.map((f) => f.messageId)).toEqual(['meetings', 'nesting']);
+    expect(found[1]).toMatchObject({ at: '<rect width="10" height="10"/>', data: { limit: MAX_WINDING_TESTS } });
+  });
 });
+

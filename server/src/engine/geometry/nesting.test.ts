@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readSvg } from '../formats/svg/readSvg';
 import { wrapSvg } from '../../../../test/support/checkCases';
 import { measureContour } from './measure';
-import { getFileSummary, getNesting } from './nesting';
+import { getFileSummary, getNesting, MAX_WINDING_TESTS } from './nesting';
 import { createWindingTester, getWindingNumber } from './winding';
 import { circleArcs, contourFromSegments, polygonSegments } from '../../../../test/support/shapes';
 
@@ -66,3 +66,24 @@ describe('getNesting and getFileSummary', () => {
     expect(n.parts[0]!.netAreaMm2).toBeCloseTo(400 - 25 * Math.PI, 9); // REFERENCES.md §2.1: A = πr²
   });
 });
+
+describe('getNesting on stacked outlines', () => {
+  it('stops after MAX_WINDING_TESTS tests and leaves the contour where it stopped and the later ones at depth 0; a square inside all, placed first, has depth 600 (by hand)', () => {
+    // A 1 mm square inside, then 600 stacked 10 mm squares: each of a square's 4 sample points is on every
+    // other square, so each pair costs 4 tests and 4·600·599 > MAX_WINDING_TESTS (closed form).
+    const nesting = getNesting(analyse('<rect x="4" y="4" width="1" height="1"/>' + '<rect width="10" height="10"/>'.repeat(600)));
+    expect(nesting.depth[0]).toBe(600);
+    expect(nesting.stoppedAt).not.toBeNull();
+    expect(nesting.stoppedAt!).toBeGreaterThan(1);
+    expect(nesting.depth.slice(nesting.stoppedAt!).every((d) => d === 0)).toBe(true);
+    expect(nesting.parent.slice(nesting.stoppedAt!).every((p) => p === null)).toBe(true);
+    expect(MAX_WINDING_TESTS).toBeLessThan(4 * 600 * 599);
+  });
+
+  it('places every contour of 300 concentric circles (stoppedAt null, depths 299 … 0, by hand)', () => {
+    const nesting = getNesting(analyse(Array.from({ length: 300 }, (_, i) => `<circle r="${i + 1}"/>`).join('')));
+    expect(nesting.stoppedAt).toBeNull();
+    expect(nesting.depth).toEqual(Array.from({ length: 300 }, (_, i) => 299 - i));
+  });
+});
+

@@ -13,7 +13,22 @@ import { getPiecePoint } from './intersectPieces';
 import { getSegmentCount } from '../model/packedSegment';
 import { createWindingTester, type WindingTester } from './winding';
 
+/**
+ * Most winding-number tests of one file (each a few microseconds for a curved contour): contours
+ * stacked on one another (each sample point on every other's boundary) or nested all in all make the
+ * tests grow with the square of their count. A thousand concentric circles need about 650 000
+ * (measured); past the limit the contour being placed and those
+ * after it are left at depth 0, and `stoppedAt` says so (the `search-stopped` check). Source: common
+ * practice, no source.
+ */
+export const MAX_WINDING_TESTS = 1_000_000;
+
 export interface Nesting {
+  /**
+   * Null when every contour was placed; otherwise the position of the contour at which
+   * MAX_WINDING_TESTS stopped the tests: it and the later ones may lie inside others and are not known to.
+   */
+  readonly stoppedAt: number | null;
   /** Per contour (by position): index of the innermost closed contour containing it, or null. */
   readonly parent: readonly (number | null)[];
   /** Per contour: number of closed contours containing it (even = material boundary, odd = hole). */
@@ -40,7 +55,7 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   }
   const parent: (number | null)[] = new Array(n).fill(null);
   const depth: number[] = new Array(n).fill(0);
-  if (indexed.length === 0) return { parent, depth, parts: [] };
+  if (indexed.length === 0) return { stoppedAt: null, parent, depth, parts: [] };
   const tree = new Flatbush(indexed.length);
   for (const i of indexed) {
     const [a, b, c, d] = contours[i]!.metrics.bboxMm;
@@ -48,7 +63,9 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
   }
   tree.finish();
   const area = (i: number) => contours[i]!.metrics.areaMm2.value ?? 0;
-  for (let i = 0; i < n; i++) {
+  let tests = 0;
+  let stoppedAt: number | null = null;
+  for (let i = 0; i < n && stoppedAt === null; i++) {
     const [minX, minY, maxX, maxY] = contours[i]!.metrics.bboxMm;
     if (tree.search(minX, minY, maxX, maxY).every((k) => indexed[k] === i)) continue;
     const samples = samplePoints(tester(i));
@@ -57,8 +74,15 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
     for (const k of tree.search(sx, sy, sx, sy)) {
       const j = indexed[k]!;
       if (j === i) continue;
+      if (tests + samples.length > MAX_WINDING_TESTS) {
+        stoppedAt = i;
+        depth[i] = 0;
+        parent[i] = null;
+        break;
+      }
       let inside: boolean | null = null;
       for (const [x, y] of samples) {
+        tests++;
         const r = tester(j).getWinding(x, y);
         if (!r.onBoundary) {
           inside = Math.abs(r.winding) % 2 === 1;
@@ -99,7 +123,7 @@ export function getNesting(contours: readonly MeasuredContour[]): Nesting {
     const p = parent[i];
     if (p !== null && p !== undefined) parent[i] = contours[p]!.contour.index;
   }
-  return { parent, depth, parts };
+  return { stoppedAt, parent, depth, parts };
 }
 
 export function getFileSummary(contours: readonly MeasuredContour[], nesting: Nesting = getNesting(contours)): FileSummary {

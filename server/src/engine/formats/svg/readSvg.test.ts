@@ -285,6 +285,17 @@ describe('readSvg: what is drawn (SVG 2 Rendering, Structural)', () => {
     expect(problems.map((p) => p.messageId)).toContain('unsupported');
   });
 
+  it('draws what is nested up to 512 levels and reports, once, the first element deeper; 100 000 levels do not exhaust the stack', () => {
+    const nested = (levels: number, inner: string) => `${'<g>'.repeat(levels)}${inner}${'</g>'.repeat(levels)}`;
+    // The outer svg's children are at level 1: the rect inside 511 groups is at level 512, the g inside 512 at 513.
+    const text = mmDoc(nested(511, '<rect id="in" width="1" height="1"/>') + nested(512, '<g id="deep"><rect width="1" height="1"/></g>') + nested(100_000, '<rect width="1" height="1"/>'));
+    const { contours, problems } = read(text);
+    expect(contours.map((c) => c.id)).toEqual(['in']);
+    expect(problems).toHaveLength(1);
+    expect(problems[0]).toMatchObject({ messageId: 'unsupported' });
+    expect(at(text, problems[0]!.span)).toBe('<g id="deep">');
+  });
+
   it('draws the first switch child without unmet requiredExtensions (SVG 2 Structural, "The switch element")', () => {
     const text = mmDoc('<switch><foreignObject requiredExtensions="urn:x"><rect width="1" height="1"/></foreignObject><g><rect id="yes" width="1" height="1"/></g><rect id="no" width="1" height="1"/></switch>');
     expect(read(text).contours.map((c) => c.id)).toEqual(['yes']);

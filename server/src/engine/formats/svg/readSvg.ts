@@ -45,6 +45,13 @@ export function readSvg(text: string, options: { assumedUnit: AssumedUnit }): Re
  */
 const MAX_USE_INSTANCES = 100_000;
 
+/**
+ * Elements nested deeper than this, counting through use instances, are not drawn: the walk is
+ * recursive, and some 4000 levels exhaust the call stack. Drawings nest a few dozen levels.
+ * Source: common practice, no source.
+ */
+const MAX_NESTING_DEPTH = 512;
+
 interface WalkState {
   /** User units of the current element's parent coordinate system → mm. */
   readonly matrix: Matrix;
@@ -79,6 +86,9 @@ class SvgReader {
   private readonly reported = new Set<string>();
   private readonly circularUse = new Map<SvgElement, boolean>();
   private useInstances = 0;
+  /** Elements being walked, the current one included; the first one past MAX_NESTING_DEPTH is reported. */
+  private depth = 0;
+  private depthReported = false;
 
   constructor(
     private readonly text: string,
@@ -248,6 +258,17 @@ class SvgReader {
   }
 
   private walk(el: SvgElement, state: WalkState): void {
+    if (this.depth >= MAX_NESTING_DEPTH) {
+      if (!this.depthReported) this.report('unsupported', el.tagSpan, { detail: `elements nested more than ${MAX_NESTING_DEPTH} deep; this one and those inside it are not drawn` });
+      this.depthReported = true;
+      return;
+    }
+    this.depth++;
+    this.walkElement(el, state);
+    this.depth--;
+  }
+
+  private walkElement(el: SvgElement, state: WalkState): void {
     if (isDisplayNone(el)) return;
     switch (el.name) {
       case 'g':

@@ -133,8 +133,9 @@ export function readLeast(text: string): LeastCounts {
   /** The entity being read: 1 LINE, 2 ARC, 0 anything else; its start and values (see LeastPieces.add). */
   let kind = 0, entityStart = 0;
   const v = new Float64Array(5);
-  // The floor's walk, keeping entity starts and the values a LINE or ARC needs. An entity ends at the
-  // next 0 group (ENDSEC after the last one).
+  // The floor's walk, keeping entity starts and the values a LINE or ARC needs (written out again, not
+  // shared: a callback per pair would slow the floor it is compared with). An entity ends at the next
+  // 0 group (ENDSEC after the last one).
   let pos = 0;
   const n = text.length;
   while (pos < n) {

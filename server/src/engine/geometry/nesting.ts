@@ -17,9 +17,8 @@ import { createWindingTester, type WindingTester } from './winding';
  * Most winding-number tests of one file (each a few microseconds for a curved contour): contours
  * stacked on one another (each sample point on every other's boundary) or nested all in all make the
  * tests grow with the square of their count. A thousand concentric circles need about 650 000
- * (measured); past the limit the contour being placed and those
- * after it are left at depth 0, and `stoppedAt` says so (the `search-stopped` check). Source: common
- * practice, no source.
+ * (measured). Past the limit, the contour being placed and those after it are left at depth 0, and
+ * `stoppedAt` says so (the `search-stopped` check). Source: common practice, no source.
  */
 export const MAX_WINDING_TESTS = 1_000_000;
 

@@ -135,23 +135,23 @@ class SvgReader {
   // ── viewports and transforms ────────────────────────────────────────────────────────────────
 
   /**
-   * The element's CTM from its parent's `matrix` and its `transform` attribute. An invalid list is
-   * ignored (as browsers do) and reported, at once or, with `report: false`, by calling the returned
-   * `reportError` (a path reports it only when it draws something).
+   * The element's CTM from its parent's `matrix` and its `transform` attribute, and how to report an
+   * invalid list, which is ignored (as browsers do): at once (`withTransform`), or by a path only when
+   * it draws something.
    */
-  private applyTransform(el: SvgElement, matrix: Matrix, report = true): { matrix: Matrix; reportError: () => void } {
+  private applyTransform(el: SvgElement, matrix: Matrix): { matrix: Matrix; reportError: () => void } {
     const attr = el.attributes.get('transform');
     if (!attr) return { matrix, reportError: NOTHING_TO_REPORT };
     const result = parseTransformList(attr.value);
     if (!('error' in result)) return { matrix: multiplyMatrices(matrix, result.matrix), reportError: NOTHING_TO_REPORT };
-    const reportError = () => this.report('value', attr.span, { attribute: 'transform', detail: result.error });
-    if (report) reportError();
-    return { matrix, reportError };
+    return { matrix, reportError: () => this.report('value', attr.span, { attribute: 'transform', detail: result.error }) };
   }
 
   /** The element's CTM; an invalid `transform` is reported and ignored. */
   private withTransform(el: SvgElement, matrix: Matrix): Matrix {
-    return this.applyTransform(el, matrix).matrix;
+    const t = this.applyTransform(el, matrix);
+    t.reportError();
+    return t.matrix;
   }
 
   private readViewBox(el: SvgElement): ViewBox | undefined {
@@ -423,7 +423,7 @@ class SvgReader {
     const base = attr.span.start;
     // Segments are built in final coordinates; an invalid transform is reported below, only for a
     // path that draws something.
-    const { matrix, reportError } = this.applyTransform(el, state.matrix, false);
+    const { matrix, reportError } = this.applyTransform(el, state.matrix);
     const parsed = parsePathData(value, base, matrix);
     const last = value.length;
     const mapOffset = (o: number) => offsets![Math.min(Math.max(o - base, 0), last)]!;
